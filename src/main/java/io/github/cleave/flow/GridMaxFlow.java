@@ -304,6 +304,96 @@ public final class GridMaxFlow implements MaxFlowSolver {
     setNeighborCapacity(node, k, (int) sum);
   }
 
+  /**
+   * Sets the terminal capacities of every node at once, the fast way to build: {@code
+   * sourceCaps[node]} and {@code sinkCaps[node]} in public node order. Replaces earlier terminal
+   * capacities when capacities are retained, adds to them otherwise.
+   *
+   * @throws IllegalArgumentException if an array has the wrong length or holds a negative value
+   */
+  public void setTerminalCapacities(int[] sourceCaps, int[] sinkCaps) {
+    checkLength(sourceCaps, "source capacities");
+    checkLength(sinkCaps, "sink capacities");
+    if (capacity == null) {
+      checkNotSolved();
+    }
+    GridLayout g = layout;
+    long pushed = 0;
+    int node = 0;
+    for (int z = 0; z < g.depth; z++) {
+      for (int y = 0; y < g.height; y++) {
+        int p = g.padded(0, y, z);
+        for (int x = 0; x < g.width; x++, p++, node++) {
+          int cs = sourceCaps[node];
+          int ct = sinkCaps[node];
+          if ((cs | ct) < 0) {
+            checkCapacity(Math.min(cs, ct), "terminal capacity of node " + node);
+          }
+          if (capacity != null) {
+            sourceCapacity[p] = cs;
+            sinkCapacity[p] = ct;
+          } else {
+            long rs = Math.max(terminal[p], 0) + (long) cs;
+            long rt = Math.max(-terminal[p], 0) + (long) ct;
+            long both = Math.min(rs, rt);
+            checkedSum(0, Math.abs(rs - rt), "terminal capacity", node);
+            terminal[p] = (int) (rs - rt);
+            pushed += both;
+          }
+        }
+      }
+    }
+    flow += pushed;
+    generation++;
+  }
+
+  /**
+   * Sets the capacity of the arc in direction {@code k} of every node at once: {@code caps[node]}
+   * in public node order. Entries of nodes whose neighbour in direction {@code k} lies outside the
+   * grid are ignored.
+   *
+   * @throws IllegalArgumentException if the array has the wrong length, holds a negative value, or
+   *     an arc and its reverse add up to more than {@code Integer.MAX_VALUE}
+   */
+  public void setNeighborCapacities(int k, int[] caps) {
+    layout.checkDirection(k);
+    checkLength(caps, "capacities of direction " + k);
+    if (capacity == null) {
+      checkNotSolved();
+    }
+    int[] target = capacity != null ? capacity : residual;
+    GridLayout g = layout;
+    int dx = g.neighborhood.dx(k);
+    int dy = g.neighborhood.dy(k);
+    int dz = g.neighborhood.dz(k);
+    int reverse = k ^ 1;
+    int step = offset[k];
+    for (int z = Math.max(0, -dz); z < Math.min(g.depth, g.depth - dz); z++) {
+      for (int y = Math.max(0, -dy); y < Math.min(g.height, g.height - dy); y++) {
+        int x0 = Math.max(0, -dx);
+        int x1 = Math.min(g.width, g.width - dx);
+        int node = x0 + g.width * (y + g.height * z);
+        int p = g.padded(x0, y, z);
+        for (int x = x0; x < x1; x++, p++, node++) {
+          int c = caps[node];
+          int back = target[(p + step) * directions + reverse];
+          if (c < 0 || (long) c + back > Integer.MAX_VALUE) {
+            setNeighborCapacity(node, k, c); // throws with the full message
+          }
+          target[p * directions + k] = c;
+        }
+      }
+    }
+    generation++;
+  }
+
+  private void checkLength(int[] values, String what) {
+    if (values.length != nodeCount()) {
+      throw new IllegalArgumentException(
+          what + ": " + values.length + " values for " + nodeCount() + " nodes");
+    }
+  }
+
   /** Adds capacity on a direct arc from the source to the sink: it always carries full flow. */
   public void addSourceSinkCapacity(long cap) {
     checkCapacity(cap, "source-to-sink capacity");

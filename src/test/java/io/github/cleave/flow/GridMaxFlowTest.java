@@ -72,6 +72,52 @@ class GridMaxFlowTest {
     }
   }
 
+  /** The bulk setters fill exactly what the per-arc setters fill (common practice, no source). */
+  @ParameterizedTest
+  @EnumSource(Neighborhood.class)
+  void bulkSettersMatchPerArcSetters(Neighborhood nb) {
+    SplittableRandom random = new SplittableRandom(77L + nb.ordinal());
+    int w = 6;
+    int h = 5;
+    int d = nb.isThreeDimensional() ? 4 : 1;
+    GridMaxFlow single = new GridMaxFlow(w, h, d, nb, true);
+    GridMaxFlow bulk = new GridMaxFlow(w, h, d, nb, true);
+    int n = single.nodeCount();
+    int[] cs = random.ints(n, 0, 50).toArray();
+    int[] ct = random.ints(n, 0, 50).toArray();
+    bulk.setTerminalCapacities(cs, ct);
+    for (int p = 0; p < n; p++) {
+      single.setTerminalCapacities(p, cs[p], ct[p]);
+    }
+    for (int k = 0; k < nb.size(); k++) {
+      int[] caps = random.ints(n, 0, 30).toArray();
+      bulk.setNeighborCapacities(k, caps);
+      for (int p = 0; p < n; p++) {
+        if (single.neighbor(p, k) >= 0) {
+          single.setNeighborCapacity(p, k, caps[p]);
+        }
+      }
+    }
+    for (int p = 0; p < n; p++) {
+      assertThat(bulk.sourceCapacity(p)).isEqualTo(single.sourceCapacity(p));
+      assertThat(bulk.sinkCapacity(p)).isEqualTo(single.sinkCapacity(p));
+      for (int k = 0; k < nb.size(); k++) {
+        assertThat(bulk.neighborCapacity(p, k)).isEqualTo(single.neighborCapacity(p, k));
+      }
+    }
+    assertThat(bulk.solve().flowValue()).isEqualTo(single.solve().flowValue());
+    GridMaxFlow lean = new GridMaxFlow(w, h, d, nb, false);
+    lean.setTerminalCapacities(cs, ct);
+    for (int k = 0; k < nb.size(); k++) {
+      int[] caps = new int[n];
+      for (int p = 0; p < n; p++) {
+        caps[p] = single.neighborCapacity(p, k);
+      }
+      lean.setNeighborCapacities(k, caps);
+    }
+    assertThat(lean.solve().flowValue()).isEqualTo(single.solve().flowValue());
+  }
+
   @Test
   void twoDimensionalNeighborhoodRejectsDepth() {
     assertThatThrownBy(() -> new GridMaxFlow(4, 4, 2, Neighborhood.N8))
