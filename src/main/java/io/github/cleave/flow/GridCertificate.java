@@ -23,18 +23,38 @@ import java.util.BitSet;
  */
 final class GridCertificate {
   private final GridMaxFlow solver;
+  private final GridSearch search;
   private final GridLayout g;
   private final int directions;
+  private final long totalShift; // sum of the reparametrisation shifts
 
   GridCertificate(GridMaxFlow solver) {
     this.solver = solver;
+    this.search = solver.search;
     this.g = solver.layout;
     this.directions = g.directions;
+    long sum = 0;
+    if (solver.shift != null) {
+      for (long s : solver.shift) {
+        sum += s;
+      }
+    }
+    this.totalShift = sum;
+  }
+
+  /** Source capacity of padded node p in the reparametrised network the flow belongs to. */
+  private long sourceCap(int p) {
+    return solver.sourceCapacity[p] + (solver.shift == null ? 0 : solver.shift[p]);
+  }
+
+  /** Sink capacity of padded node p in the reparametrised network the flow belongs to. */
+  private long sinkCap(int p) {
+    return solver.sinkCapacity[p] + (solver.shift == null ? 0 : solver.shift[p]);
   }
 
   /** Throws {@link CertificateViolation} naming the first condition that fails. */
   void check() {
-    int[] residual = solver.residual;
+    int[] residual = search.residual;
     int[] capacity = solver.capacity;
     long sourceFlow = solver.sourceSinkCapacity;
     for (int p = 0; p < g.paddedCount; p++) {
@@ -67,9 +87,9 @@ final class GridCertificate {
         }
         netOut += capacity[a] - residual[a];
       }
-      int cs = solver.sourceCapacity[p];
-      int ct = solver.sinkCapacity[p];
-      int t = solver.terminal[p];
+      long cs = sourceCap(p);
+      long ct = sinkCap(p);
+      int t = search.terminal[p];
       long rs = Math.max(t, 0);
       long rt = Math.max(-(long) t, 0);
       if (rs > cs || rt > ct) {
@@ -99,20 +119,25 @@ final class GridCertificate {
       }
       sourceFlow += fromSource;
     }
-    if (sourceFlow != solver.flow) {
+    if (sourceFlow != search.flow + totalShift) {
       throw violation(
-          "flow value " + solver.flow + " differs from the flow leaving the source " + sourceFlow);
+          "flow value "
+              + search.flow
+              + " (+ reparametrisation "
+              + totalShift
+              + ") differs from the flow leaving the source "
+              + sourceFlow);
     }
     checkCut(reachableFromSource());
   }
 
   private void checkBorder(int p) {
-    if (solver.terminal[p] != 0 || solver.tree[p] != GridMaxFlow.FREE) {
+    if (search.terminal[p] != 0 || search.tree[p] != GridSearch.FREE) {
       throw violation("border node " + p + " carries terminal residual or joined a tree");
     }
     for (int k = 0; k < directions; k++) {
       int a = p * directions + k;
-      if (solver.residual[a] != 0 || solver.capacity[a] != 0) {
+      if (search.residual[a] != 0 || solver.capacity[a] != 0) {
         throw violation("border node " + p + " has a non-zero arc in direction " + k);
       }
     }
@@ -123,7 +148,7 @@ final class GridCertificate {
     BitSet reached = new BitSet(g.paddedCount);
     IntFifo queue = new IntFifo(1024);
     for (int p = 0; p < g.paddedCount; p++) {
-      if (solver.terminal[p] > 0) {
+      if (search.terminal[p] > 0) {
         reached.set(p);
         queue.add(p);
       }
@@ -132,7 +157,7 @@ final class GridCertificate {
       int p = queue.poll();
       for (int k = 0; k < directions; k++) {
         int q = p + g.offset[k];
-        if (solver.residual[p * directions + k] > 0 && !reached.get(q)) {
+        if (search.residual[p * directions + k] > 0 && !reached.get(q)) {
           reached.set(q);
           queue.add(q);
         }
@@ -142,35 +167,37 @@ final class GridCertificate {
   }
 
   private void checkCut(BitSet reached) {
-    long cut = solver.sourceSinkCapacity;
+    long cut = solver.sourceSinkCapacity - totalShift;
     for (int p = 0; p < g.paddedCount; p++) {
       boolean inS = reached.get(p);
-      if (inS != (solver.tree[p] == GridMaxFlow.SOURCE_TREE)) {
+      if (inS != (search.tree[p] == GridSearch.SOURCE_TREE)) {
         throw violation(
             "node "
                 + g.unpadded(p)
-                + (inS ? " is reachable from the source but not" : " is in the source tree but not")
-                + " reachable in the residual graph");
+                + (inS
+                    ? " is reachable from the source in the residual graph but not in the"
+                        + " solver's source set"
+                    : " is in the solver's source set but not reachable from the source"));
       }
       if (!g.isInside(p)) {
         continue;
       }
       if (inS) {
-        if (solver.terminal[p] < 0) {
+        if (search.terminal[p] < 0) {
           throw violation("the sink is reachable from the source through node " + g.unpadded(p));
         }
-        cut += solver.sinkCapacity[p];
+        cut += sinkCap(p);
         for (int k = 0; k < directions; k++) {
           if (!reached.get(p + g.offset[k])) {
             cut += solver.capacity[p * directions + k];
           }
         }
       } else {
-        cut += solver.sourceCapacity[p];
+        cut += sourceCap(p);
       }
     }
-    if (cut != solver.flow) {
-      throw violation("cut capacity " + cut + " differs from flow value " + solver.flow);
+    if (cut != search.flow) {
+      throw violation("cut capacity " + cut + " differs from flow value " + search.flow);
     }
   }
 
@@ -187,7 +214,7 @@ final class GridCertificate {
       for (int y = 0; y < g.height; y++) {
         int p = g.padded(0, y, z);
         for (int x = 0; x < g.width; x++, p++, node++) {
-          int t = solver.terminal[p];
+          int t = search.terminal[p];
           long fromSource = solver.sourceCapacity[p] - Math.max(t, 0);
           long toSink = solver.sinkCapacity[p] - Math.max(-(long) t, 0);
           if (fromSource > 0) {
@@ -195,7 +222,7 @@ final class GridCertificate {
           }
           for (int k = 0; k < directions; k++) {
             int a = p * directions + k;
-            long net = (long) solver.capacity[a] - solver.residual[a];
+            long net = (long) solver.capacity[a] - search.residual[a];
             if (net > 0) {
               visitor.arc(node, g.unpadded(p + g.offset[k]), net);
             }

@@ -1,6 +1,5 @@
 package io.github.cleave.flow;
 
-import java.util.Arrays;
 import java.util.BitSet;
 
 /**
@@ -55,11 +54,24 @@ import java.util.BitSet;
  * the solver keeps the capacities apart from the residuals: every {@link #solve()} starts from zero
  * flow, capacities may be changed between solves, and {@link #checkCertificate()} and {@link
  * MaxFlowResult#visitArcFlows} are available. Otherwise only residuals are stored (the memory
- * floor): capacities can be set only before the first solve, and a further {@code solve()}
- * continues from the present flow, which is already maximal.
+ * floor): neighbour capacities can be set only before the first solve, terminal capacities are
+ * changed by signed amounts, and a further {@code solve()} continues from the present flow.
+ *
+ * <h2>Dynamic re-solve</h2>
+ *
+ * After a solve, capacity changes are applied to the present flow and search trees, and {@link
+ * #resolve()} continues from them instead of starting over (P. Kohli and P. H. S. Torr,
+ * "Efficiently solving dynamic Markov random fields using graph cuts", ICCV 2005,
+ * doi:10.1109/ICCV.2005.81). A terminal change is absorbed by the signed terminal residual; a
+ * neighbour capacity lowered below its present flow sends the excess to the terminals. Both may add
+ * an equal amount to the two terminal arcs of a node, a reparametrisation that shifts every cut by
+ * that amount and is subtracted from the reported flow value. The re-solve costs time in proportion
+ * to the part of the trees the change invalidates, not to the grid size. The result equals that of
+ * a solve from scratch: same flow value, same minimal source set.
  *
  * <p>Not thread-safe.
  */
+/** Node id of the source terminal in {@link MaxFlowResult#visitArcFlows}. */
 public final class GridMaxFlow implements MaxFlowSolver {
   /** Node id of the source terminal in {@link MaxFlowResult#visitArcFlows}. */
   public static final int SOURCE = -1;
@@ -67,51 +79,23 @@ public final class GridMaxFlow implements MaxFlowSolver {
   /** Node id of the sink terminal in {@link MaxFlowResult#visitArcFlows}. */
   public static final int SINK = -2;
 
-  static final byte FREE = 0;
-  static final byte SOURCE_TREE = 1;
-  static final byte SINK_TREE = 2;
-  static final byte NO_PARENT = -1;
-  static final byte TERMINAL_PARENT = -2;
-  static final byte ORPHAN = -3;
-  private static final int NOT_ACTIVE = -1;
-  private static final int INFINITE_DISTANCE = Integer.MAX_VALUE;
-  private static final int INTERRUPT_CHECK_MASK = 0xFFF;
-
   final GridLayout layout;
+  final GridSearch search; // residuals, flow and trees
   private final int directions; // K
   private final int[] offset; // offset[k]: padded index difference to the neighbour in direction k
 
-  // Network state, indexed by padded node p (arcs by p * K + k).
-  final int[] residual; // >= 0; residual of arc p -> p + offset[k]; 0 on arcs touching the border
-  final int[] terminal; // > 0 residual source->p, < 0 minus residual p->sink; 0 on the border
-  long flow; // value of the current flow (terminal pre-pushes + augmentations + direct arcs)
-
-  // Retained capacities (null unless retaining), same indexing; never changed by solving.
+  // Retained capacities (null unless retaining), indexed by padded node / arc; the network the
+  // caller built. The solver's flow is one of the reparametrised network: both terminal
+  // capacities of node p raised by shift[p].
   final int[] capacity; // c(p, k) >= 0, c(p, k) + c(p + offset[k], k ^ 1) <= Integer.MAX_VALUE
   final int[] sourceCapacity; // cs(p) >= 0
   final int[] sinkCapacity; // ct(p) >= 0
+  long[] shift; // >= 0, added to both terminal capacities by dynamic changes; null if none yet
   long sourceSinkCapacity; // capacity of direct source -> sink arcs, always carrying full flow
 
-  // Search state, indexed by padded node.
-  final byte[] tree; // FREE, SOURCE_TREE or SINK_TREE; border nodes stay FREE
-  final byte[] parent; // direction k towards the parent, TERMINAL_PARENT, ORPHAN, or NO_PARENT
-  private final int[] mark; // time at which dist was last known exact; <= time
-  private final int[] dist; // distance (arcs) to the tree's terminal, valid if mark == time
-  private final int[] nextActive; // active FIFO link; NOT_ACTIVE if not queued, itself if last
-  private int firstActive = -1; // head of the active FIFO, -1 if empty
-  private int lastActive = -1; // tail of the active FIFO, -1 if empty
-  private final IntFifo orphans; // nodes whose parent arc was saturated, parent == ORPHAN
-  private int time; // incremented at every augmentation
-
-  // Path found by the growth stage: arc pathTail -> pathTail + offset[pathDirection], S to T.
-  private int pathTail;
-  private int pathDirection;
-
-  private long augmentations;
-  private long orphansAdopted;
-  private long orphansFreed;
+  private final IntFifo changed = new IntFifo(64); // padded nodes to repair before a resolve
   private long generation; // incremented at every change and every solve
-  private boolean solved; // at least one solve has run
+  private boolean solved; // the search holds the flow and trees of a solve
 
   /**
    * A solver for a {@code width × height × depth} grid, retaining capacities when Java assertions
@@ -132,23 +116,16 @@ public final class GridMaxFlow implements MaxFlowSolver {
   public GridMaxFlow(
       int width, int height, int depth, Neighborhood neighborhood, boolean retainCapacities) {
     this.layout = new GridLayout(width, height, depth, neighborhood);
+    this.search = new GridSearch(layout);
     this.directions = layout.directions;
     this.offset = layout.offset;
     int n = layout.paddedCount;
-    this.residual = new int[n * directions];
-    this.terminal = new int[n];
     this.capacity = retainCapacities ? new int[n * directions] : null;
     this.sourceCapacity = retainCapacities ? new int[n] : null;
     this.sinkCapacity = retainCapacities ? new int[n] : null;
-    this.tree = new byte[n];
-    this.parent = new byte[n];
-    this.mark = new int[n];
-    this.dist = new int[n];
-    this.nextActive = new int[n];
-    this.orphans = new IntFifo(1024);
   }
 
-  @SuppressWarnings({"AssertWithSideEffects", "java:S3346"})
+  @SuppressWarnings("AssertWithSideEffects")
   private static boolean assertionsEnabled() {
     boolean enabled = false;
     assert enabled = true;
@@ -201,38 +178,33 @@ public final class GridMaxFlow implements MaxFlowSolver {
   }
 
   /**
-   * Adds terminal capacities to a node: {@code sourceCap} to the arc from the source, {@code
-   * sinkCap} to the arc to the sink.
+   * Adds {@code sourceDelta} to the capacity of the arc from the source to {@code node} and {@code
+   * sinkDelta} to that of the arc to the sink. Deltas may be negative as long as the capacities
+   * stay non-negative (checked when capacities are retained; the caller's duty otherwise). After a
+   * solve the change is applied to the present flow for {@link #resolve()}.
    *
-   * @throws IllegalArgumentException if a capacity is negative or a total exceeds {@code
-   *     Integer.MAX_VALUE}
-   * @throws IllegalStateException if capacities are not retained and a solve has run
+   * @throws IllegalArgumentException if a capacity would leave {@code 0 .. Integer.MAX_VALUE}
    */
-  public void addTerminalCapacities(int node, long sourceCap, long sinkCap) {
+  public void addTerminalCapacities(int node, long sourceDelta, long sinkDelta) {
     layout.checkNode(node);
-    checkCapacity(sourceCap, "source capacity of node " + node);
-    checkCapacity(sinkCap, "sink capacity of node " + node);
     int p = layout.padded(node);
     if (capacity != null) {
-      sourceCapacity[p] = checkedSum(sourceCapacity[p], sourceCap, "source capacity", node);
-      sinkCapacity[p] = checkedSum(sinkCapacity[p], sinkCap, "sink capacity", node);
-    } else {
-      checkNotSolved();
-      long rs = Math.max(terminal[p], 0) + sourceCap;
-      long rt = Math.max(-terminal[p], 0) + sinkCap;
-      long both = Math.min(rs, rt);
-      checkedSum(0, rs - both, "source capacity", node);
-      checkedSum(0, rt - both, "sink capacity", node);
-      terminal[p] = (int) (rs - rt);
-      flow += both;
+      long cs = sourceCapacity[p] + sourceDelta;
+      long ct = sinkCapacity[p] + sinkDelta;
+      checkCapacity(cs, "source capacity of node " + node);
+      checkCapacity(ct, "sink capacity of node " + node);
+      sourceCapacity[p] = (int) cs;
+      sinkCapacity[p] = (int) ct;
+    }
+    if (capacity == null || solved) {
+      absorbTerminalChange(p, sourceDelta, sinkDelta);
     }
     generation++;
   }
 
   /**
-   * Sets the terminal capacities of a node, replacing earlier ones.
-   *
-   * @throws IllegalStateException if capacities are not retained
+   * Sets the terminal capacities of a node, replacing earlier ones (retained capacities only).
+   * After a solve the change is applied to the present flow for {@link #resolve()}.
    */
   public void setTerminalCapacities(int node, int sourceCap, int sinkCap) {
     requireRetained("setTerminalCapacities");
@@ -240,16 +212,35 @@ public final class GridMaxFlow implements MaxFlowSolver {
     checkCapacity(sourceCap, "source capacity of node " + node);
     checkCapacity(sinkCap, "sink capacity of node " + node);
     int p = layout.padded(node);
-    sourceCapacity[p] = sourceCap;
-    sinkCapacity[p] = sinkCap;
-    generation++;
+    addTerminalCapacities(
+        node, (long) sourceCap - sourceCapacity[p], (long) sinkCap - sinkCapacity[p]);
+  }
+
+  private void absorbTerminalChange(int p, long dSource, long dSink) {
+    long m = search.changeTerminal(p, dSource, dSink);
+    if (m < 0 && capacity != null) {
+      addShift(p, -m);
+    }
+    if (solved) {
+      changed.add(p);
+    }
+  }
+
+  private void addShift(int p, long amount) {
+    if (shift == null) {
+      shift = new long[layout.paddedCount];
+    }
+    shift[p] += amount;
   }
 
   /**
-   * Sets the capacity of the arc from {@code node} to its neighbour in direction {@code k}.
+   * Sets the capacity of the arc from {@code node} to its neighbour in direction {@code k}. After a
+   * solve (retained capacities only) the change is applied to the present flow for {@link
+   * #resolve()}.
    *
    * @throws IllegalArgumentException if the neighbour is outside the grid, the capacity is
    *     negative, or it plus the capacity of the reverse arc exceeds {@code Integer.MAX_VALUE}
+   * @throws IllegalStateException if capacities are not retained and a solve has run
    */
   public void setNeighborCapacity(int node, int k, int cap) {
     layout.checkNode(node);
@@ -260,13 +251,14 @@ public final class GridMaxFlow implements MaxFlowSolver {
       throw new IllegalArgumentException(
           "node " + node + " has no neighbour in direction " + k + " (it lies on the border)");
     }
-    int[] target = capacity != null ? capacity : residual;
     if (capacity == null) {
       checkNotSolved();
     }
+    int[] target = capacity != null ? capacity : search.residual;
     int p = layout.padded(node);
-    int reverse = target[(p + offset[k]) * directions + (k ^ 1)];
-    if ((long) cap + reverse > Integer.MAX_VALUE) {
+    int a = p * directions + k;
+    int b = (p + offset[k]) * directions + (k ^ 1);
+    if ((long) cap + target[b] > Integer.MAX_VALUE) {
       throw new IllegalArgumentException(
           "arcs between node "
               + node
@@ -275,12 +267,45 @@ public final class GridMaxFlow implements MaxFlowSolver {
               + " have capacities "
               + cap
               + " and "
-              + reverse
+              + target[b]
               + "; their sum must not exceed "
               + Integer.MAX_VALUE);
     }
-    target[p * directions + k] = cap;
+    int old = target[a];
+    target[a] = cap;
+    if (capacity != null && solved) {
+      absorbNeighborChange(p, k, (long) cap - old);
+    }
     generation++;
+  }
+
+  /**
+   * Applies a change {@code delta} of the capacity of arc a = (p, k) to the present flow. Raising
+   * it raises the residual. Lowering it below the present flow on the arc cancels the excess e of
+   * flow: p is left with e more inflow than outflow, its neighbour q with e less; both imbalances
+   * go to the terminals by raising both terminal capacities of p and q by e (the shift), routing
+   * p's excess to the sink and q's shortfall from the source.
+   */
+  private void absorbNeighborChange(int p, int k, long delta) {
+    int q = p + offset[k];
+    int a = p * directions + k;
+    int b = q * directions + (k ^ 1);
+    int[] residual = search.residual;
+    long r = residual[a] + delta;
+    if (r >= 0) {
+      residual[a] = (int) r;
+    } else {
+      long excess = -r;
+      residual[a] = 0;
+      residual[b] -= (int) excess;
+      addShift(p, excess);
+      search.flow -= excess;
+      absorbTerminalChange(p, excess, 0);
+      addShift(q, excess);
+      absorbTerminalChange(q, 0, excess);
+    }
+    changed.add(p);
+    changed.add(q);
   }
 
   /** Adds {@code cap} to the arc from {@code node} in direction {@code k}; limits as in set. */
@@ -288,7 +313,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
     layout.checkNode(node);
     layout.checkDirection(k);
     checkCapacity(cap, "capacity of arc (" + node + ", " + k + ")");
-    int[] target = capacity != null ? capacity : residual;
+    int[] target = capacity != null ? capacity : search.residual;
     long sum = target[layout.padded(node) * directions + k] + cap;
     if (sum > Integer.MAX_VALUE) {
       throw new IllegalArgumentException(
@@ -307,18 +332,15 @@ public final class GridMaxFlow implements MaxFlowSolver {
   /**
    * Sets the terminal capacities of every node at once, the fast way to build: {@code
    * sourceCaps[node]} and {@code sinkCaps[node]} in public node order. Replaces earlier terminal
-   * capacities when capacities are retained, adds to them otherwise.
+   * capacities when capacities are retained, adds to them otherwise. Only before the first solve.
    *
    * @throws IllegalArgumentException if an array has the wrong length or holds a negative value
    */
   public void setTerminalCapacities(int[] sourceCaps, int[] sinkCaps) {
     checkLength(sourceCaps, "source capacities");
     checkLength(sinkCaps, "sink capacities");
-    if (capacity == null) {
-      checkNotSolved();
-    }
+    checkNotSolved();
     GridLayout g = layout;
-    long pushed = 0;
     int node = 0;
     for (int z = 0; z < g.depth; z++) {
       for (int y = 0; y < g.height; y++) {
@@ -333,24 +355,18 @@ public final class GridMaxFlow implements MaxFlowSolver {
             sourceCapacity[p] = cs;
             sinkCapacity[p] = ct;
           } else {
-            long rs = Math.max(terminal[p], 0) + (long) cs;
-            long rt = Math.max(-terminal[p], 0) + (long) ct;
-            long both = Math.min(rs, rt);
-            checkedSum(0, Math.abs(rs - rt), "terminal capacity", node);
-            terminal[p] = (int) (rs - rt);
-            pushed += both;
+            search.changeTerminal(p, cs, ct);
           }
         }
       }
     }
-    flow += pushed;
     generation++;
   }
 
   /**
    * Sets the capacity of the arc in direction {@code k} of every node at once: {@code caps[node]}
    * in public node order. Entries of nodes whose neighbour in direction {@code k} lies outside the
-   * grid are ignored.
+   * grid are ignored. Only before the first solve.
    *
    * @throws IllegalArgumentException if the array has the wrong length, holds a negative value, or
    *     an arc and its reverse add up to more than {@code Integer.MAX_VALUE}
@@ -358,10 +374,8 @@ public final class GridMaxFlow implements MaxFlowSolver {
   public void setNeighborCapacities(int k, int[] caps) {
     layout.checkDirection(k);
     checkLength(caps, "capacities of direction " + k);
-    if (capacity == null) {
-      checkNotSolved();
-    }
-    int[] target = capacity != null ? capacity : residual;
+    checkNotSolved();
+    int[] target = capacity != null ? capacity : search.residual;
     GridLayout g = layout;
     int dx = g.neighborhood.dx(k);
     int dy = g.neighborhood.dy(k);
@@ -397,9 +411,9 @@ public final class GridMaxFlow implements MaxFlowSolver {
   /** Adds capacity on a direct arc from the source to the sink: it always carries full flow. */
   public void addSourceSinkCapacity(long cap) {
     checkCapacity(cap, "source-to-sink capacity");
+    checkNotSolved();
     if (capacity == null) {
-      checkNotSolved();
-      flow += cap;
+      search.flow += cap;
     }
     sourceSinkCapacity += cap;
     generation++;
@@ -433,27 +447,49 @@ public final class GridMaxFlow implements MaxFlowSolver {
   @Override
   public MaxFlowResult solve() {
     long start = System.nanoTime();
-    generation++;
-    long adoptedBefore = orphansAdopted;
-    long freedBefore = orphansFreed;
-    long augmentationsBefore = augmentations;
     if (capacity != null) {
       loadCapacities();
     }
-    initialiseTrees();
-    SolveStatus status = maxFlow();
+    changed.clear();
+    search.initialiseTrees();
+    return run(start);
+  }
+
+  /**
+   * Continues from the present flow and search trees after capacity changes (dynamic re-solve); the
+   * same as {@link #solve()} if no solve has run yet.
+   */
+  public MaxFlowResult resolve() {
+    if (!solved) {
+      return solve();
+    }
+    long start = System.nanoTime();
+    search.beginRepairs();
+    while (!changed.isEmpty()) {
+      search.repair(changed.poll());
+    }
+    search.adoptOrphans();
+    return run(start);
+  }
+
+  private MaxFlowResult run(long start) {
+    generation++;
+    long augmentations = search.augmentations;
+    long adopted = search.orphansAdopted;
+    long freed = search.orphansFreed;
+    SolveStatus status = search.maxFlow();
     solved = true;
     long nanos = System.nanoTime() - start;
-    BitSet cut = sourceSide();
+    BitSet cut = search.sourceSide();
     if (status == SolveStatus.OPTIMAL) {
       assert capacity == null || checkCertificate();
     }
     SolveStatistics stats =
         new SolveStatistics(
-            augmentations - augmentationsBefore,
-            orphansAdopted - adoptedBefore,
-            orphansFreed - freedBefore);
-    return new MaxFlowResult(flow, status, cut, nodeCount(), nanos, stats, new ArcFlows());
+            search.augmentations - augmentations,
+            search.orphansAdopted - adopted,
+            search.orphansFreed - freed);
+    return new MaxFlowResult(search.flow, status, cut, nodeCount(), nanos, stats, new ArcFlows());
   }
 
   @Override
@@ -468,7 +504,10 @@ public final class GridMaxFlow implements MaxFlowSolver {
 
   /** Residuals from the retained capacities, zero flow. */
   private void loadCapacities() {
+    int[] residual = search.residual;
+    int[] terminal = search.terminal;
     System.arraycopy(capacity, 0, residual, 0, capacity.length);
+    shift = null;
     long f = sourceSinkCapacity;
     for (int p = 0; p < terminal.length; p++) {
       int cs = sourceCapacity[p];
@@ -476,356 +515,14 @@ public final class GridMaxFlow implements MaxFlowSolver {
       terminal[p] = cs - ct;
       f += Math.min(cs, ct);
     }
-    flow = f;
-  }
-
-  /** Every node with terminal residual becomes an active child of its terminal. */
-  private void initialiseTrees() {
-    Arrays.fill(tree, FREE);
-    Arrays.fill(parent, NO_PARENT);
-    Arrays.fill(mark, 0);
-    Arrays.fill(dist, 0);
-    Arrays.fill(nextActive, NOT_ACTIVE);
-    firstActive = -1;
-    lastActive = -1;
-    orphans.clear();
-    time = 0;
-    for (int p = 0; p < terminal.length; p++) {
-      int t = terminal[p];
-      if (t != 0) {
-        tree[p] = t > 0 ? SOURCE_TREE : SINK_TREE;
-        parent[p] = TERMINAL_PARENT;
-        dist[p] = 1;
-        activate(p);
-      }
-    }
-  }
-
-  /** The main loop: growth, augmentation, adoption, until no active node is left. */
-  private SolveStatus maxFlow() {
-    int current = -1;
-    int iteration = 0;
-    while (true) {
-      if ((++iteration & INTERRUPT_CHECK_MASK) == 0 && Thread.currentThread().isInterrupted()) {
-        return SolveStatus.INTERRUPTED;
-      }
-      int p;
-      if (current >= 0 && tree[current] != FREE) {
-        p = current;
-      } else {
-        p = nextActiveNode();
-        if (p < 0) {
-          return SolveStatus.OPTIMAL;
-        }
-      }
-      current = -1;
-      boolean found = tree[p] == SOURCE_TREE ? growSource(p) : growSink(p);
-      if (found) {
-        current = p;
-        time++;
-        augment();
-        adoptOrphans();
-      }
-    }
-  }
-
-  /** Grows S from {@code p}; returns true with the path arc set when it touches T. */
-  private boolean growSource(int p) {
-    int base = p * directions;
-    for (int k = 0; k < directions; k++) {
-      if (residual[base + k] > 0) {
-        int q = p + offset[k];
-        byte tq = tree[q];
-        if (tq == FREE) {
-          tree[q] = SOURCE_TREE;
-          parent[q] = (byte) (k ^ 1);
-          mark[q] = mark[p];
-          dist[q] = dist[p] + 1;
-          activate(q);
-        } else if (tq == SINK_TREE) {
-          pathTail = p;
-          pathDirection = k;
-          return true;
-        } else if (mark[q] <= mark[p] && dist[q] > dist[p]) {
-          parent[q] = (byte) (k ^ 1);
-          mark[q] = mark[p];
-          dist[q] = dist[p] + 1;
-        }
-      }
-    }
-    return false;
-  }
-
-  /** Grows T from {@code p} over arcs into {@code p}; returns true when it touches S. */
-  private boolean growSink(int p) {
-    for (int k = 0; k < directions; k++) {
-      int q = p + offset[k];
-      if (residual[q * directions + (k ^ 1)] > 0) {
-        byte tq = tree[q];
-        if (tq == FREE) {
-          tree[q] = SINK_TREE;
-          parent[q] = (byte) (k ^ 1);
-          mark[q] = mark[p];
-          dist[q] = dist[p] + 1;
-          activate(q);
-        } else if (tq == SOURCE_TREE) {
-          pathTail = q;
-          pathDirection = k ^ 1;
-          return true;
-        } else if (mark[q] <= mark[p] && dist[q] > dist[p]) {
-          parent[q] = (byte) (k ^ 1);
-          mark[q] = mark[p];
-          dist[q] = dist[p] + 1;
-        }
-      }
-    }
-    return false;
-  }
-
-  /** Pushes the bottleneck along source -> ... -> pathTail -> pathHead -> ... -> sink. */
-  private void augment() {
-    int tail = pathTail;
-    int head = tail + offset[pathDirection];
-    int bottleneck = residual[tail * directions + pathDirection];
-    for (int i = tail; ; ) {
-      byte d = parent[i];
-      if (d == TERMINAL_PARENT) {
-        bottleneck = Math.min(bottleneck, terminal[i]);
-        break;
-      }
-      int j = i + offset[d];
-      bottleneck = Math.min(bottleneck, residual[j * directions + (d ^ 1)]);
-      i = j;
-    }
-    for (int i = head; ; ) {
-      byte d = parent[i];
-      if (d == TERMINAL_PARENT) {
-        bottleneck = Math.min(bottleneck, -terminal[i]);
-        break;
-      }
-      bottleneck = Math.min(bottleneck, residual[i * directions + d]);
-      i += offset[d];
-    }
-    residual[tail * directions + pathDirection] -= bottleneck;
-    residual[head * directions + (pathDirection ^ 1)] += bottleneck;
-    for (int i = tail; ; ) {
-      byte d = parent[i];
-      if (d == TERMINAL_PARENT) {
-        terminal[i] -= bottleneck;
-        if (terminal[i] == 0) {
-          makeOrphan(i);
-        }
-        break;
-      }
-      int j = i + offset[d];
-      residual[i * directions + d] += bottleneck;
-      if ((residual[j * directions + (d ^ 1)] -= bottleneck) == 0) {
-        makeOrphan(i);
-      }
-      i = j;
-    }
-    for (int i = head; ; ) {
-      byte d = parent[i];
-      if (d == TERMINAL_PARENT) {
-        terminal[i] += bottleneck;
-        if (terminal[i] == 0) {
-          makeOrphan(i);
-        }
-        break;
-      }
-      int j = i + offset[d];
-      residual[j * directions + (d ^ 1)] += bottleneck;
-      if ((residual[i * directions + d] -= bottleneck) == 0) {
-        makeOrphan(i);
-      }
-      i = j;
-    }
-    flow += bottleneck;
-    augmentations++;
-  }
-
-  private void makeOrphan(int p) {
-    parent[p] = ORPHAN;
-    orphans.add(p);
-  }
-
-  private void adoptOrphans() {
-    while (!orphans.isEmpty()) {
-      int p = orphans.poll();
-      if (tree[p] == SOURCE_TREE) {
-        adoptIntoSource(p);
-      } else {
-        adoptIntoSink(p);
-      }
-    }
-  }
-
-  /**
-   * Finds orphan {@code p} of S the closest valid parent q (arc q -> p unsaturated), or frees it.
-   */
-  private void adoptIntoSource(int p) {
-    int bestDirection = -1;
-    int bestDistance = INFINITE_DISTANCE;
-    for (int k = 0; k < directions; k++) {
-      int q = p + offset[k];
-      if (tree[q] == SOURCE_TREE && residual[q * directions + (k ^ 1)] > 0) {
-        int d = distanceToTerminal(q);
-        if (d < bestDistance) {
-          bestDistance = d;
-          bestDirection = k;
-        }
-      }
-    }
-    if (bestDirection >= 0) {
-      parent[p] = (byte) bestDirection;
-      mark[p] = time;
-      dist[p] = bestDistance + 1;
-      orphansAdopted++;
-      return;
-    }
-    for (int k = 0; k < directions; k++) {
-      int q = p + offset[k];
-      if (tree[q] == SOURCE_TREE) {
-        if (residual[q * directions + (k ^ 1)] > 0) {
-          activate(q);
-        }
-        if (parent[q] == (byte) (k ^ 1)) {
-          makeOrphan(q);
-        }
-      }
-    }
-    tree[p] = FREE;
-    parent[p] = NO_PARENT;
-    orphansFreed++;
-  }
-
-  /**
-   * Finds orphan {@code p} of T the closest valid parent q (arc p -> q unsaturated), or frees it.
-   */
-  private void adoptIntoSink(int p) {
-    int base = p * directions;
-    int bestDirection = -1;
-    int bestDistance = INFINITE_DISTANCE;
-    for (int k = 0; k < directions; k++) {
-      int q = p + offset[k];
-      if (tree[q] == SINK_TREE && residual[base + k] > 0) {
-        int d = distanceToTerminal(q);
-        if (d < bestDistance) {
-          bestDistance = d;
-          bestDirection = k;
-        }
-      }
-    }
-    if (bestDirection >= 0) {
-      parent[p] = (byte) bestDirection;
-      mark[p] = time;
-      dist[p] = bestDistance + 1;
-      orphansAdopted++;
-      return;
-    }
-    for (int k = 0; k < directions; k++) {
-      int q = p + offset[k];
-      if (tree[q] == SINK_TREE) {
-        if (residual[base + k] > 0) {
-          activate(q);
-        }
-        if (parent[q] == (byte) (k ^ 1)) {
-          makeOrphan(q);
-        }
-      }
-    }
-    tree[p] = FREE;
-    parent[p] = NO_PARENT;
-    orphansFreed++;
-  }
-
-  /**
-   * Distance from {@code q} to its tree's terminal along parent arcs, or INFINITE_DISTANCE if the
-   * walk meets an orphan (q's origin is no longer a terminal). Marks the walked nodes with the
-   * current time and their exact distances, so later walks stop early.
-   */
-  private int distanceToTerminal(int q) {
-    int d = 0;
-    int j = q;
-    while (true) {
-      if (mark[j] == time) {
-        d += dist[j];
-        break;
-      }
-      byte a = parent[j];
-      d++;
-      if (a == TERMINAL_PARENT) {
-        mark[j] = time;
-        dist[j] = 1;
-        break;
-      }
-      if (a == ORPHAN) {
-        return INFINITE_DISTANCE;
-      }
-      j += offset[a];
-    }
-    int dj = d;
-    for (j = q; mark[j] != time; j += offset[parent[j]]) {
-      mark[j] = time;
-      dist[j] = dj--;
-    }
-    return d;
-  }
-
-  private void activate(int p) {
-    if (nextActive[p] == NOT_ACTIVE) {
-      if (lastActive < 0) {
-        firstActive = p;
-      } else {
-        nextActive[lastActive] = p;
-      }
-      nextActive[p] = p;
-      lastActive = p;
-    }
-  }
-
-  /** Removes and returns the next active node still in a tree, or -1 if none is left. */
-  private int nextActiveNode() {
-    while (firstActive >= 0) {
-      int p = firstActive;
-      int next = nextActive[p];
-      nextActive[p] = NOT_ACTIVE;
-      if (next == p) {
-        firstActive = -1;
-        lastActive = -1;
-      } else {
-        firstActive = next;
-      }
-      if (tree[p] != FREE) {
-        return p;
-      }
-    }
-    return -1;
-  }
-
-  /** Source side of the cut: the nodes of S, in public numbering. */
-  private BitSet sourceSide() {
-    GridLayout g = layout;
-    BitSet side = new BitSet(g.nodeCount());
-    int node = 0;
-    for (int z = 0; z < g.depth; z++) {
-      for (int y = 0; y < g.height; y++) {
-        int p = g.padded(0, y, z);
-        for (int x = 0; x < g.width; x++, p++, node++) {
-          if (tree[p] == SOURCE_TREE) {
-            side.set(node);
-          }
-        }
-      }
-    }
-    return side;
+    search.flow = f;
   }
 
   private void checkNotSolved() {
     if (solved) {
       throw new IllegalStateException(
-          "capacities cannot change after a solve unless the solver retains them"
-              + " (construct it with retainCapacities = true)");
+          "this change is not supported after a solve: construct the solver with"
+              + " retainCapacities = true and use the per-node setters, or build a new one");
     }
   }
 
@@ -843,15 +540,6 @@ public final class GridMaxFlow implements MaxFlowSolver {
     }
   }
 
-  private static int checkedSum(int current, long add, String what, int node) {
-    long sum = current + add;
-    if (sum > Integer.MAX_VALUE) {
-      throw new IllegalArgumentException(
-          what + " of node " + node + " adds up to " + sum + ", more than " + Integer.MAX_VALUE);
-    }
-    return (int) sum;
-  }
-
   /** The flows of the present state, read by {@link MaxFlowResult#visitArcFlows}. */
   private final class ArcFlows implements MaxFlowResult.FlowView {
     @Override
@@ -862,6 +550,11 @@ public final class GridMaxFlow implements MaxFlowSolver {
     @Override
     public void visitArcFlows(ArcFlowVisitor visitor) {
       requireRetained("visitArcFlows");
+      if (shift != null) {
+        throw new IllegalStateException(
+            "arc flows after a dynamic re-solve that lowered capacities belong to a"
+                + " reparametrised network; call solve() for the flows of this one");
+      }
       new GridCertificate(GridMaxFlow.this).visitArcFlows(visitor);
     }
   }

@@ -1,0 +1,517 @@
+package io.github.cleave.flow;
+
+import java.util.Arrays;
+import java.util.BitSet;
+
+/**
+ * The search state and the three stages (growth, augmentation, adoption) of the Boykov–Kolmogorov
+ * method on a padded grid; see {@link GridMaxFlow} for the method and {@link GridLayout} for the
+ * indexing. This class also repairs the trees after capacity changes so that a solve can continue
+ * from the previous flow and trees (Kohli and Torr, "Efficiently solving dynamic Markov random
+ * fields using graph cuts", ICCV 2005, doi:10.1109/ICCV.2005.81).
+ *
+ * <p>Invariants between the stages: every node of S has an unsaturated path from the source along
+ * its parent arcs (residual of parent -> child > 0, a root has terminal residual > 0), every node
+ * of T one to the sink; a node's parent is in its own tree; orphans (parent == ORPHAN) are queued;
+ * every tree node that may have a free or opposite-tree neighbour over an unsaturated arc is
+ * active.
+ */
+final class GridSearch {
+  static final byte FREE = 0;
+  static final byte SOURCE_TREE = 1;
+  static final byte SINK_TREE = 2;
+  static final byte NO_PARENT = -1;
+  static final byte TERMINAL_PARENT = -2;
+  static final byte ORPHAN = -3;
+  private static final int NOT_ACTIVE = -1;
+  private static final int INFINITE_DISTANCE = Integer.MAX_VALUE;
+  private static final int INTERRUPT_CHECK_MASK = 0xFFF;
+
+  final GridLayout layout;
+  private final int directions; // K
+  private final int[] offset; // offset[k]: padded index difference to the neighbour in direction k
+
+  // Network state, indexed by padded node p (arcs by p * K + k).
+  final int[] residual; // >= 0; residual of arc p -> p + offset[k]; 0 on arcs touching the border
+  final int[] terminal; // > 0 residual source->p, < 0 minus residual p->sink; 0 on the border
+  long flow; // flow value of the network the caller sees (see GridMaxFlow on reparametrisation)
+
+  // Search state, indexed by padded node.
+  final byte[] tree; // FREE, SOURCE_TREE or SINK_TREE; border nodes stay FREE
+  final byte[] parent; // direction k towards the parent, TERMINAL_PARENT, ORPHAN, or NO_PARENT
+  private final int[] mark; // time at which dist was last known exact; <= time
+  private final int[] dist; // distance (arcs) to the tree's terminal, valid if mark == time
+  private final int[] nextActive; // active FIFO link; NOT_ACTIVE if not queued, itself if last
+  private int firstActive = -1; // head of the active FIFO, -1 if empty
+  private int lastActive = -1; // tail of the active FIFO, -1 if empty
+  private final IntFifo orphans; // nodes whose parent arc was saturated, parent == ORPHAN
+  private int time; // incremented at every augmentation
+
+  // Path found by the growth stage: arc pathTail -> pathTail + offset[pathDirection], S to T.
+  private int pathTail;
+  private int pathDirection;
+
+  long augmentations; // counters since construction
+  long orphansAdopted;
+  long orphansFreed;
+
+  GridSearch(GridLayout layout) {
+    this.layout = layout;
+    this.directions = layout.directions;
+    this.offset = layout.offset;
+    int n = layout.paddedCount;
+    this.residual = new int[n * directions];
+    this.terminal = new int[n];
+    this.tree = new byte[n];
+    this.parent = new byte[n];
+    this.mark = new int[n];
+    this.dist = new int[n];
+    this.nextActive = new int[n];
+    Arrays.fill(nextActive, NOT_ACTIVE);
+    this.orphans = new IntFifo(1024);
+  }
+
+  /**
+   * Changes the terminal residuals of node {@code p} by {@code dSource} (source side) and {@code
+   * dSink} (sink side), then removes the common part {@code m = min} of the two new residuals: a
+   * reparametrisation that shifts every cut by {@code m}, so the flow value moves by {@code m}.
+   *
+   * @return {@code m}, negative when a residual would have become negative (the caller keeps it as
+   *     an equal amount added to both terminal capacities)
+   * @throws IllegalArgumentException if the net residual leaves the int range
+   */
+  long changeTerminal(int p, long dSource, long dSink) {
+    int t = terminal[p];
+    long rs = Math.max(t, 0) + dSource;
+    long rt = Math.max(-(long) t, 0) + dSink;
+    long m = Math.min(rs, rt);
+    long net = rs - rt;
+    if (net > Integer.MAX_VALUE || net < -Integer.MAX_VALUE) {
+      throw new IllegalArgumentException(
+          "terminal capacities of node "
+              + layout.unpadded(p)
+              + " differ by "
+              + net
+              + ", more than "
+              + Integer.MAX_VALUE);
+    }
+    terminal[p] = (int) net;
+    flow += m;
+    return m;
+  }
+
+  /**
+   * Restores the tree invariants at node {@code p} after its terminal residual or the residuals of
+   * its arcs changed: a node with terminal residual becomes a root of that terminal's tree (leaving
+   * the other tree, whose children of it become orphans); a node whose parent arc is saturated
+   * becomes an orphan; tree nodes are activated so that growth rescans them.
+   */
+  void repair(int p) {
+    // (The caller has called beginRepairs(), so that no distance mark predates the changes.)
+    int t = terminal[p];
+    if (t != 0) {
+      byte wanted = t > 0 ? SOURCE_TREE : SINK_TREE;
+      if (tree[p] != wanted) {
+        if (tree[p] != FREE) {
+          // Leaving a tree: its children there are orphaned, and its neighbours there, passive
+          // until now, may have open arcs to p that now lead to the other tree.
+          orphanChildren(p);
+          activateTreeNeighbours(p);
+        }
+        tree[p] = wanted;
+      }
+      parent[p] = TERMINAL_PARENT;
+      mark[p] = time;
+      dist[p] = 1;
+      activate(p);
+      return;
+    }
+    if (tree[p] == FREE) {
+      return;
+    }
+    byte d = parent[p];
+    if (d != ORPHAN && (d == TERMINAL_PARENT || d == NO_PARENT || !parentArcOpen(p, d))) {
+      makeOrphan(p);
+    }
+    activate(p);
+  }
+
+  /**
+   * Starts a batch of repairs: advances the clock, so that no node's distance mark counts as
+   * verified (a mark equal to the current time means "origin checked since the last change").
+   */
+  void beginRepairs() {
+    time++;
+  }
+
+  private boolean parentArcOpen(int p, int d) {
+    if (tree[p] == SOURCE_TREE) {
+      return residual[(p + offset[d]) * directions + (d ^ 1)] > 0;
+    }
+    return residual[p * directions + d] > 0;
+  }
+
+  private void activateTreeNeighbours(int p) {
+    for (int k = 0; k < directions; k++) {
+      int q = p + offset[k];
+      if (tree[q] != FREE) {
+        activate(q);
+      }
+    }
+  }
+
+  private void orphanChildren(int p) {
+    byte own = tree[p];
+    for (int k = 0; k < directions; k++) {
+      int q = p + offset[k];
+      if (tree[q] == own && parent[q] == (byte) (k ^ 1)) {
+        makeOrphan(q);
+      }
+    }
+  }
+
+  /** Every node with terminal residual becomes an active child of its terminal. */
+  void initialiseTrees() {
+    Arrays.fill(tree, FREE);
+    Arrays.fill(parent, NO_PARENT);
+    Arrays.fill(mark, 0);
+    Arrays.fill(dist, 0);
+    Arrays.fill(nextActive, NOT_ACTIVE);
+    firstActive = -1;
+    lastActive = -1;
+    orphans.clear();
+    time = 0;
+    for (int p = 0; p < terminal.length; p++) {
+      int t = terminal[p];
+      if (t != 0) {
+        tree[p] = t > 0 ? SOURCE_TREE : SINK_TREE;
+        parent[p] = TERMINAL_PARENT;
+        dist[p] = 1;
+        activate(p);
+      }
+    }
+  }
+
+  /** The main loop: growth, augmentation, adoption, until no active node is left. */
+  SolveStatus maxFlow() {
+    int current = -1;
+    int iteration = 0;
+    while (true) {
+      if ((++iteration & INTERRUPT_CHECK_MASK) == 0 && Thread.currentThread().isInterrupted()) {
+        return SolveStatus.INTERRUPTED;
+      }
+      int p;
+      if (current >= 0 && tree[current] != FREE) {
+        p = current;
+      } else {
+        p = nextActiveNode();
+        if (p < 0) {
+          return SolveStatus.OPTIMAL;
+        }
+      }
+      current = -1;
+      boolean found = tree[p] == SOURCE_TREE ? growSource(p) : growSink(p);
+      if (found) {
+        current = p;
+        time++;
+        augment();
+        adoptOrphans();
+      }
+    }
+  }
+
+  /** Grows S from {@code p}; returns true with the path arc set when it touches T. */
+  private boolean growSource(int p) {
+    int base = p * directions;
+    for (int k = 0; k < directions; k++) {
+      if (residual[base + k] > 0) {
+        int q = p + offset[k];
+        byte tq = tree[q];
+        if (tq == FREE) {
+          tree[q] = SOURCE_TREE;
+          parent[q] = (byte) (k ^ 1);
+          mark[q] = mark[p];
+          dist[q] = dist[p] + 1;
+          activate(q);
+        } else if (tq == SINK_TREE) {
+          pathTail = p;
+          pathDirection = k;
+          return true;
+        } else if (mark[q] <= mark[p] && dist[q] > dist[p]) {
+          parent[q] = (byte) (k ^ 1);
+          mark[q] = mark[p];
+          dist[q] = dist[p] + 1;
+        }
+      }
+    }
+    return false;
+  }
+
+  /** Grows T from {@code p} over arcs into {@code p}; returns true when it touches S. */
+  private boolean growSink(int p) {
+    for (int k = 0; k < directions; k++) {
+      int q = p + offset[k];
+      if (residual[q * directions + (k ^ 1)] > 0) {
+        byte tq = tree[q];
+        if (tq == FREE) {
+          tree[q] = SINK_TREE;
+          parent[q] = (byte) (k ^ 1);
+          mark[q] = mark[p];
+          dist[q] = dist[p] + 1;
+          activate(q);
+        } else if (tq == SOURCE_TREE) {
+          pathTail = q;
+          pathDirection = k ^ 1;
+          return true;
+        } else if (mark[q] <= mark[p] && dist[q] > dist[p]) {
+          parent[q] = (byte) (k ^ 1);
+          mark[q] = mark[p];
+          dist[q] = dist[p] + 1;
+        }
+      }
+    }
+    return false;
+  }
+
+  /** Pushes the bottleneck along source -> ... -> pathTail -> pathHead -> ... -> sink. */
+  private void augment() {
+    int tail = pathTail;
+    int head = tail + offset[pathDirection];
+    int bottleneck = residual[tail * directions + pathDirection];
+    for (int i = tail; ; ) {
+      byte d = parent[i];
+      if (d == TERMINAL_PARENT) {
+        bottleneck = Math.min(bottleneck, terminal[i]);
+        break;
+      }
+      int j = i + offset[d];
+      bottleneck = Math.min(bottleneck, residual[j * directions + (d ^ 1)]);
+      i = j;
+    }
+    for (int i = head; ; ) {
+      byte d = parent[i];
+      if (d == TERMINAL_PARENT) {
+        bottleneck = Math.min(bottleneck, -terminal[i]);
+        break;
+      }
+      bottleneck = Math.min(bottleneck, residual[i * directions + d]);
+      i += offset[d];
+    }
+    residual[tail * directions + pathDirection] -= bottleneck;
+    residual[head * directions + (pathDirection ^ 1)] += bottleneck;
+    for (int i = tail; ; ) {
+      byte d = parent[i];
+      if (d == TERMINAL_PARENT) {
+        terminal[i] -= bottleneck;
+        if (terminal[i] == 0) {
+          makeOrphan(i);
+        }
+        break;
+      }
+      int j = i + offset[d];
+      residual[i * directions + d] += bottleneck;
+      if ((residual[j * directions + (d ^ 1)] -= bottleneck) == 0) {
+        makeOrphan(i);
+      }
+      i = j;
+    }
+    for (int i = head; ; ) {
+      byte d = parent[i];
+      if (d == TERMINAL_PARENT) {
+        terminal[i] += bottleneck;
+        if (terminal[i] == 0) {
+          makeOrphan(i);
+        }
+        break;
+      }
+      int j = i + offset[d];
+      residual[j * directions + (d ^ 1)] += bottleneck;
+      if ((residual[i * directions + d] -= bottleneck) == 0) {
+        makeOrphan(i);
+      }
+      i = j;
+    }
+    flow += bottleneck;
+    augmentations++;
+  }
+
+  private void makeOrphan(int p) {
+    parent[p] = ORPHAN;
+    orphans.add(p);
+  }
+
+  void adoptOrphans() {
+    while (!orphans.isEmpty()) {
+      int p = orphans.poll();
+      if (parent[p] != ORPHAN) {
+        continue; // re-rooted by a capacity change after it was queued
+      }
+      if (tree[p] == SOURCE_TREE) {
+        adoptIntoSource(p);
+      } else {
+        adoptIntoSink(p);
+      }
+    }
+  }
+
+  /**
+   * Finds orphan {@code p} of S the closest valid parent q (arc q -> p unsaturated), or frees it.
+   */
+  private void adoptIntoSource(int p) {
+    int bestDirection = -1;
+    int bestDistance = INFINITE_DISTANCE;
+    for (int k = 0; k < directions; k++) {
+      int q = p + offset[k];
+      if (tree[q] == SOURCE_TREE && residual[q * directions + (k ^ 1)] > 0) {
+        int d = distanceToTerminal(q);
+        if (d < bestDistance) {
+          bestDistance = d;
+          bestDirection = k;
+        }
+      }
+    }
+    if (bestDirection >= 0) {
+      parent[p] = (byte) bestDirection;
+      mark[p] = time;
+      dist[p] = bestDistance + 1;
+      orphansAdopted++;
+      return;
+    }
+    for (int k = 0; k < directions; k++) {
+      int q = p + offset[k];
+      if (tree[q] == SOURCE_TREE) {
+        if (residual[q * directions + (k ^ 1)] > 0) {
+          activate(q);
+        }
+        if (parent[q] == (byte) (k ^ 1)) {
+          makeOrphan(q);
+        }
+      }
+    }
+    tree[p] = FREE;
+    parent[p] = NO_PARENT;
+    orphansFreed++;
+  }
+
+  /**
+   * Finds orphan {@code p} of T the closest valid parent q (arc p -> q unsaturated), or frees it.
+   */
+  private void adoptIntoSink(int p) {
+    int base = p * directions;
+    int bestDirection = -1;
+    int bestDistance = INFINITE_DISTANCE;
+    for (int k = 0; k < directions; k++) {
+      int q = p + offset[k];
+      if (tree[q] == SINK_TREE && residual[base + k] > 0) {
+        int d = distanceToTerminal(q);
+        if (d < bestDistance) {
+          bestDistance = d;
+          bestDirection = k;
+        }
+      }
+    }
+    if (bestDirection >= 0) {
+      parent[p] = (byte) bestDirection;
+      mark[p] = time;
+      dist[p] = bestDistance + 1;
+      orphansAdopted++;
+      return;
+    }
+    for (int k = 0; k < directions; k++) {
+      int q = p + offset[k];
+      if (tree[q] == SINK_TREE) {
+        if (residual[base + k] > 0) {
+          activate(q);
+        }
+        if (parent[q] == (byte) (k ^ 1)) {
+          makeOrphan(q);
+        }
+      }
+    }
+    tree[p] = FREE;
+    parent[p] = NO_PARENT;
+    orphansFreed++;
+  }
+
+  /**
+   * Distance from {@code q} to its tree's terminal along parent arcs, or INFINITE_DISTANCE if the
+   * walk meets an orphan (q's origin is no longer a terminal). Marks the walked nodes with the
+   * current time and their exact distances, so later walks stop early.
+   */
+  private int distanceToTerminal(int q) {
+    int d = 0;
+    int j = q;
+    while (true) {
+      if (mark[j] == time) {
+        d += dist[j];
+        break;
+      }
+      byte a = parent[j];
+      d++;
+      if (a == TERMINAL_PARENT) {
+        mark[j] = time;
+        dist[j] = 1;
+        break;
+      }
+      if (a == ORPHAN) {
+        return INFINITE_DISTANCE;
+      }
+      j += offset[a];
+    }
+    int dj = d;
+    for (j = q; mark[j] != time; j += offset[parent[j]]) {
+      mark[j] = time;
+      dist[j] = dj--;
+    }
+    return d;
+  }
+
+  private void activate(int p) {
+    if (nextActive[p] == NOT_ACTIVE) {
+      if (lastActive < 0) {
+        firstActive = p;
+      } else {
+        nextActive[lastActive] = p;
+      }
+      nextActive[p] = p;
+      lastActive = p;
+    }
+  }
+
+  /** Removes and returns the next active node still in a tree, or -1 if none is left. */
+  private int nextActiveNode() {
+    while (firstActive >= 0) {
+      int p = firstActive;
+      int next = nextActive[p];
+      nextActive[p] = NOT_ACTIVE;
+      if (next == p) {
+        firstActive = -1;
+        lastActive = -1;
+      } else {
+        firstActive = next;
+      }
+      if (tree[p] != FREE) {
+        return p;
+      }
+    }
+    return -1;
+  }
+
+  /** Source side of the cut: the nodes of S, in public numbering. */
+  BitSet sourceSide() {
+    GridLayout g = layout;
+    BitSet side = new BitSet(g.nodeCount());
+    int node = 0;
+    for (int z = 0; z < g.depth; z++) {
+      for (int y = 0; y < g.height; y++) {
+        int p = g.padded(0, y, z);
+        for (int x = 0; x < g.width; x++, p++, node++) {
+          if (tree[p] == SOURCE_TREE) {
+            side.set(node);
+          }
+        }
+      }
+    }
+    return side;
+  }
+}
