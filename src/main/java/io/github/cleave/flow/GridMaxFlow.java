@@ -93,7 +93,9 @@ public final class GridMaxFlow implements MaxFlowSolver {
   long[] shift; // >= 0, added to both terminal capacities by dynamic changes; null if none yet
   long sourceSinkCapacity; // capacity of direct source -> sink arcs, always carrying full flow
 
-  private final IntFifo changed = new IntFifo(64); // padded nodes to repair before a resolve
+  private final IntFifo changed = new IntFifo(64); // padded nodes to repair, each once
+  private final BitSet pending = new BitSet(); // the nodes in `changed`
+  private boolean repairAll; // too many changes to list: repair every node instead
   private long generation; // incremented at every change and every solve
   private boolean solved; // the search holds the flow and trees of a solve
 
@@ -222,7 +224,21 @@ public final class GridMaxFlow implements MaxFlowSolver {
       addShift(p, -m);
     }
     if (solved) {
-      changed.add(p);
+      markChanged(p);
+    }
+  }
+
+  /** Queues node p for repair before the next resolve, once; a sweep replaces long lists. */
+  private void markChanged(int p) {
+    if (repairAll || pending.get(p)) {
+      return;
+    }
+    pending.set(p);
+    changed.add(p);
+    if (changed.size() > layout.paddedCount / 8) {
+      repairAll = true;
+      changed.clear();
+      pending.clear();
     }
   }
 
@@ -304,8 +320,8 @@ public final class GridMaxFlow implements MaxFlowSolver {
       addShift(q, excess);
       absorbTerminalChange(q, 0, excess);
     }
-    changed.add(p);
-    changed.add(q);
+    markChanged(p);
+    markChanged(q);
   }
 
   /** Adds {@code cap} to the arc from {@code node} in direction {@code k}; limits as in set. */
@@ -451,6 +467,8 @@ public final class GridMaxFlow implements MaxFlowSolver {
       loadCapacities();
     }
     changed.clear();
+    pending.clear();
+    repairAll = false;
     search.initialiseTrees();
     return run(start);
   }
@@ -465,9 +483,16 @@ public final class GridMaxFlow implements MaxFlowSolver {
     }
     long start = System.nanoTime();
     search.beginRepairs();
+    if (repairAll) {
+      for (int p = 0; p < layout.paddedCount; p++) {
+        search.repair(p);
+      }
+      repairAll = false;
+    }
     while (!changed.isEmpty()) {
       search.repair(changed.poll());
     }
+    pending.clear();
     search.adoptOrphans();
     return run(start);
   }

@@ -12,6 +12,10 @@ final class IntFifo {
     items = new int[Math.max(16, initialCapacity)];
   }
 
+  int size() {
+    return size;
+  }
+
   boolean isEmpty() {
     return size == 0;
   }
