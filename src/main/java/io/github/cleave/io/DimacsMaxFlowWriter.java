@@ -3,20 +3,17 @@ package io.github.cleave.io;
 import io.github.cleave.synth.SyntheticGridProblem;
 import java.io.BufferedWriter;
 import java.io.IOException;
-import java.io.OutputStream;
 import java.io.OutputStreamWriter;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.util.zip.GZIPOutputStream;
 
 /**
  * Writes a grid problem as a grid-structured DIMACS max-flow file: pixels are nodes {@code 1 ..
  * W*H*D} in row-major order (x fastest), the source is {@code W*H*D + 1}, the sink {@code W*H*D +
  * 2}; arcs with zero capacity are left out. A name ending in {@code .gz} is gzip-compressed. The
- * file is written to a temporary sibling and renamed into place, so no partial file remains.
+ * file is written atomically ({@link AtomicFiles}), so no partial file remains.
  */
 public final class DimacsMaxFlowWriter {
   private DimacsMaxFlowWriter() {}
@@ -28,23 +25,20 @@ public final class DimacsMaxFlowWriter {
    */
   public static void write(SyntheticGridProblem problem, Path file, String... comments)
       throws IOException {
-    Path parent = file.toAbsolutePath().getParent();
-    Path temporary = Files.createTempFile(parent, "." + file.getFileName(), ".part");
-    try {
-      try (OutputStream raw = Files.newOutputStream(temporary);
-          OutputStream out =
-              file.getFileName().toString().endsWith(".gz")
-                  ? new GZIPOutputStream(raw, 1 << 16)
-                  : raw;
-          Writer writer =
-              new BufferedWriter(new OutputStreamWriter(out, StandardCharsets.US_ASCII), 1 << 16)) {
-        writeTo(problem, writer, comments);
-      }
-      Files.move(
-          temporary, file, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-    } finally {
-      Files.deleteIfExists(temporary);
-    }
+    boolean gzip = file.getFileName().toString().endsWith(".gz");
+    AtomicFiles.write(
+        file,
+        raw -> {
+          // Closing the writer finishes the gzip trailer and frees the deflater; the raw stream
+          // tolerates the second close by AtomicFiles.
+          try (Writer writer =
+              new BufferedWriter(
+                  new OutputStreamWriter(
+                      gzip ? new GZIPOutputStream(raw, 1 << 16) : raw, StandardCharsets.US_ASCII),
+                  1 << 16)) {
+            writeTo(problem, writer, comments);
+          }
+        });
   }
 
   private static void writeTo(SyntheticGridProblem problem, Writer w, String... comments)

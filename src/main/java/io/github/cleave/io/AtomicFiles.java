@@ -1,0 +1,60 @@
+package io.github.cleave.io;
+
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
+import java.util.concurrent.ThreadLocalRandom;
+
+/**
+ * Writes files so that no partial file is ever visible under the final name: the content goes to a
+ * hidden temporary sibling ({@code .NAME.RANDOM.part}), which is renamed into place only after it
+ * was written and closed completely. On failure the temporary file is deleted.
+ */
+public final class AtomicFiles {
+  private AtomicFiles() {}
+
+  /** Writes the content of a file to a stream. */
+  @FunctionalInterface
+  public interface Content {
+    /** Writes everything to {@code out}; the caller closes it. */
+    void writeTo(OutputStream out) throws IOException;
+  }
+
+  /**
+   * Writes {@code target} atomically, replacing an existing file of that name.
+   *
+   * @throws IOException if writing or renaming fails; then nothing is left behind
+   */
+  public static void write(Path target, Content content) throws IOException {
+    Path absolute = target.toAbsolutePath();
+    Path temporary =
+        absolute.resolveSibling(
+            "."
+                + absolute.getFileName()
+                + "."
+                + Long.toHexString(ThreadLocalRandom.current().nextLong())
+                + ".part");
+    try {
+      try (OutputStream out =
+          Files.newOutputStream(
+              temporary, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE)) {
+        content.writeTo(out);
+      }
+      try {
+        Files.move(
+            temporary,
+            absolute,
+            StandardCopyOption.ATOMIC_MOVE,
+            StandardCopyOption.REPLACE_EXISTING);
+      } catch (AtomicMoveNotSupportedException e) {
+        Files.move(temporary, absolute, StandardCopyOption.REPLACE_EXISTING);
+      }
+    } finally {
+      Files.deleteIfExists(temporary);
+    }
+  }
+}
