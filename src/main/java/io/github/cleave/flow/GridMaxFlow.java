@@ -417,6 +417,66 @@ public final class GridMaxFlow implements MaxFlowSolver {
     generation++;
   }
 
+  /**
+   * Sets the capacities of every neighbour arc at once from an interleaved array: {@code caps[node
+   * * K + k]} is the capacity of the arc from {@code node} in direction {@code k}, in public node
+   * order. Entries of arcs leaving the grid are ignored. Only before the first solve.
+   *
+   * @throws IllegalArgumentException if the array has the wrong length, holds a negative value, or
+   *     an arc and its reverse add up to more than {@code Integer.MAX_VALUE}
+   */
+  public void setNeighborCapacities(int[] caps) {
+    if (caps.length != (long) nodeCount() * directions) {
+      throw new IllegalArgumentException(
+          "neighbour capacities: "
+              + caps.length
+              + " values for "
+              + nodeCount()
+              + " nodes with "
+              + directions
+              + " directions");
+    }
+    checkNotSolved();
+    int[] target = capacity != null ? capacity : search.residual;
+    GridLayout g = layout;
+    int node = 0;
+    for (int z = 0; z < g.depth; z++) {
+      for (int y = 0; y < g.height; y++) {
+        int p = g.padded(0, y, z);
+        int rowStart = p * directions;
+        System.arraycopy(caps, node * directions, target, rowStart, g.width * directions);
+        node += g.width;
+      }
+    }
+    // Arcs that leave the grid must stay closed, and each arc pair must fit in an int.
+    Neighborhood nb = g.neighborhood;
+    node = 0;
+    for (int z = 0; z < g.depth; z++) {
+      for (int y = 0; y < g.height; y++) {
+        int p = g.padded(0, y, z);
+        for (int x = 0; x < g.width; x++, p++, node++) {
+          int base = p * directions;
+          for (int k = 0; k < directions; k++) {
+            int c = target[base + k];
+            int qx = x + nb.dx(k);
+            int qy = y + nb.dy(k);
+            int qz = z + nb.dz(k);
+            if (qx < 0 || qx >= g.width || qy < 0 || qy >= g.height || qz < 0 || qz >= g.depth) {
+              target[base + k] = 0;
+              continue;
+            }
+            int back = target[(p + offset[k]) * directions + (k ^ 1)];
+            if (c < 0 || c + back < 0) {
+              target[base + k] = 0;
+              setNeighborCapacity(node, k, c); // throws with the full message
+            }
+          }
+        }
+      }
+    }
+    generation++;
+  }
+
   private void checkLength(int[] values, String what) {
     if (values.length != nodeCount()) {
       throw new IllegalArgumentException(
@@ -458,6 +518,28 @@ public final class GridMaxFlow implements MaxFlowSolver {
       return 0;
     }
     return capacity[layout.padded(node) * directions + k];
+  }
+
+  /**
+   * Bytes of solver state: the residual network and search state, and the retained capacities if
+   * any. Divided by {@link #nodeCount()} this is the memory per node that benchmarks report.
+   */
+  public long stateBytes() {
+    long retained =
+        capacity == null ? 0 : 4L * (capacity.length + sourceCapacity.length + sinkCapacity.length);
+    return search.stateBytes() + retained;
+  }
+
+  /** Width in bits of the stored residual capacities. */
+  public int capacityWidth() {
+    return 32;
+  }
+
+  /** Bytes of the retained capacities alone (0 when not retaining). */
+  public long retainedBytes() {
+    return capacity == null
+        ? 0
+        : 4L * (capacity.length + sourceCapacity.length + sinkCapacity.length);
   }
 
   @Override

@@ -497,6 +497,12 @@ final class GridSearch {
     return -1;
   }
 
+  /** Bytes held by the arrays of the residual network and the search state. */
+  long stateBytes() {
+    long n = terminal.length;
+    return 4L * residual.length + n * (4 + 1 + 1 + 4 + 4 + 4) + 4L * orphans.capacity();
+  }
+
   /** Source side of the cut: the nodes of S, in public numbering. */
   BitSet sourceSide() {
     GridLayout g = layout;

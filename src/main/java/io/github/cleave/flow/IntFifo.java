@@ -12,6 +12,10 @@ final class IntFifo {
     items = new int[Math.max(16, initialCapacity)];
   }
 
+  int capacity() {
+    return items.length;
+  }
+
   int size() {
     return size;
   }

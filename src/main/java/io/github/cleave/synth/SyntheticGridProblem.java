@@ -313,14 +313,7 @@ public final class SyntheticGridProblem {
   public GridMaxFlow toSolver(boolean retainCapacities) {
     GridMaxFlow solver = new GridMaxFlow(width, height, depth, neighborhood, retainCapacities);
     solver.setTerminalCapacities(sourceCapacity, sinkCapacity);
-    int k = neighborhood.size();
-    int[] caps = new int[sourceCapacity.length];
-    for (int dir = 0; dir < k; dir++) {
-      for (int i = 0; i < caps.length; i++) {
-        caps[i] = neighborCapacity[i * k + dir];
-      }
-      solver.setNeighborCapacities(dir, caps);
-    }
+    solver.setNeighborCapacities(neighborCapacity);
     return solver;
   }
 }

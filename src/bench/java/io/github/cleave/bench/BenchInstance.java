@@ -1,0 +1,60 @@
+package io.github.cleave.bench;
+
+import io.github.cleave.flow.Neighborhood;
+import io.github.cleave.synth.SyntheticGridProblem;
+import io.github.cleave.synth.SyntheticGridProblem.Flavour;
+import java.util.List;
+
+/**
+ * One benchmark instance: a synthetic grid problem named {@code 2d-SIDE-nK-FLAVOUR} or {@code
+ * 3d-SIDE-nK-FLAVOUR} (FLAVOUR {@code ordinary} or {@code boundary}), generated with seed 1 by
+ * {@link SyntheticGridProblem#generate}.
+ */
+record BenchInstance(String name, int side, boolean threeD, Neighborhood neighborhood, Flavour flavour) {
+
+  /** The instances the issue asks for, smallest first. */
+  static final List<String> ALL =
+      List.of(
+          "2d-1024-n4-ordinary",
+          "2d-1024-n4-boundary",
+          "2d-1024-n8-ordinary",
+          "2d-1024-n8-boundary",
+          "3d-128-n6-ordinary",
+          "3d-128-n6-boundary",
+          "2d-2048-n4-ordinary",
+          "2d-2048-n4-boundary",
+          "2d-2048-n8-ordinary",
+          "2d-2048-n8-boundary",
+          "3d-256-n6-ordinary",
+          "3d-256-n6-boundary");
+
+  static final long SEED = 1;
+
+  static BenchInstance parse(String name) {
+    String[] parts = name.split("-");
+    if (parts.length != 4 || !(parts[0].equals("2d") || parts[0].equals("3d"))) {
+      throw new IllegalArgumentException(
+          "instance '" + name + "': expected 2d|3d-SIDE-nK-ordinary|boundary, e.g. 2d-1024-n8-ordinary");
+    }
+    Flavour flavour =
+        switch (parts[3]) {
+          case "ordinary" -> Flavour.ORDINARY;
+          case "boundary" -> Flavour.BOUNDARY_DOMINATED;
+          default -> throw new IllegalArgumentException("flavour '" + parts[3] + "': ordinary or boundary");
+        };
+    return new BenchInstance(
+        name,
+        Integer.parseInt(parts[1]),
+        parts[0].equals("3d"),
+        Neighborhood.of(Integer.parseInt(parts[2].substring(1))),
+        flavour);
+  }
+
+  long nodes() {
+    return threeD ? (long) side * side * side : (long) side * side;
+  }
+
+  SyntheticGridProblem generate() {
+    return SyntheticGridProblem.generate(side, side, threeD ? side : 1, neighborhood, flavour, SEED);
+  }
+}

@@ -1,0 +1,145 @@
+package io.github.cleave.bench;
+
+import io.github.cleave.synth.SyntheticGridProblem;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+
+/**
+ * Side-by-side max-flow benchmark on synthetic grid segmentation instances: this engine, JGraphT's
+ * Boykov–Kolmogorov implementation and OR-tools' max flow, in the same run, with the phases defined
+ * in DEVELOPERS.md (build, solve; medians over the repeats). Prints a Markdown table.
+ *
+ * <p>Arguments ({@code key=value}, any order): {@code instances=all|NAME,NAME...} (names as in
+ * {@link BenchInstance}), {@code solvers=cleave,or-tools,jgrapht-bk}, {@code repeats=5} (this
+ * engine), {@code reference-repeats=3} (the others), {@code jgrapht-max-nodes=1100000} (JGraphT
+ * needs several hundred bytes per node and minutes per solve beyond that), {@code out=FILE} (also
+ * write the table there).
+ */
+public final class GridBenchmark {
+  private GridBenchmark() {}
+
+  public static void main(String[] args) throws IOException {
+    Map<String, String> options = new LinkedHashMap<>();
+    options.put("instances", "all");
+    options.put("solvers", "cleave,or-tools,jgrapht-bk");
+    options.put("repeats", "5");
+    options.put("reference-repeats", "3");
+    options.put("jgrapht-max-nodes", "1100000");
+    options.put("out", "");
+    for (String arg : args) {
+      if (arg.equals("all")) {
+        continue;
+      }
+      int eq = arg.indexOf('=');
+      if (eq < 0 || !options.containsKey(arg.substring(0, eq))) {
+        throw new IllegalArgumentException("unknown argument '" + arg + "'; known: " + options.keySet());
+      }
+      options.put(arg.substring(0, eq), arg.substring(eq + 1));
+    }
+    List<String> names =
+        options.get("instances").equals("all")
+            ? BenchInstance.ALL
+            : List.of(options.get("instances").split(","));
+    List<String> solverNames = List.of(options.get("solvers").split(","));
+    int repeats = Integer.parseInt(options.get("repeats"));
+    int referenceRepeats = Integer.parseInt(options.get("reference-repeats"));
+    long jgraphtMax = Long.parseLong(options.get("jgrapht-max-nodes"));
+
+    List<String> lines = new ArrayList<>();
+    lines.add(machine());
+    lines.add("");
+    lines.add(
+        "| instance | solver | build ms | solve ms | flow | bytes/node | solve ratio vs this engine | note |");
+    lines.add("|---|---|---:|---:|---:|---:|---:|---|");
+    for (String line : lines) {
+      System.out.println(line);
+    }
+    for (String name : names) {
+      BenchInstance instance = BenchInstance.parse(name.trim());
+      SyntheticGridProblem problem = instance.generate();
+      List<Measurement> results = new ArrayList<>();
+      for (String solverName : solverNames) {
+        results.add(runOne(solverName.trim(), instance, problem, repeats, referenceRepeats, jgraphtMax));
+      }
+      double ours = results.get(0).solveMs();
+      long flow = results.get(0).flow();
+      for (Measurement m : results) {
+        String agree = !m.ran() || m.flow() == flow ? "" : " FLOW DIFFERS";
+        String line =
+            String.format(
+                Locale.ROOT,
+                "| %s | %s | %s | %s | %s | %s | %s | %s%s |",
+                name,
+                m.solver(),
+                fmt(m.buildMs()),
+                fmt(m.solveMs()),
+                m.ran() ? Long.toString(m.flow()) : "-",
+                fmt(m.bytesPerNode()),
+                m.ran() ? String.format(Locale.ROOT, "%.1f", m.solveMs() / ours) : "-",
+                m.note(),
+                agree);
+        System.out.println(line);
+        lines.add(line);
+      }
+    }
+    if (!options.get("out").isEmpty()) {
+      Files.write(Path.of(options.get("out")), lines);
+    }
+  }
+
+  private static Measurement runOne(
+      String solverName,
+      BenchInstance instance,
+      SyntheticGridProblem problem,
+      int repeats,
+      int referenceRepeats,
+      long jgraphtMax) {
+    BenchSolver solver =
+        switch (solverName) {
+          case "cleave" -> new CleaveSolver();
+          case "or-tools" -> new OrToolsSolver();
+          case "jgrapht-bk" -> new JGraphTSolver();
+          default -> throw new IllegalArgumentException("unknown solver '" + solverName + "'");
+        };
+    if (solver instanceof JGraphTSolver && instance.nodes() > jgraphtMax) {
+      return Measurement.skipped(solver.name(), "skipped: more than " + jgraphtMax + " nodes");
+    }
+    Measurement m = solver.run(problem, solver instanceof CleaveSolver ? repeats : referenceRepeats);
+    Timing.heapUsed();
+    return m;
+  }
+
+  private static String fmt(double value) {
+    return Double.isNaN(value) ? "-" : String.format(Locale.ROOT, "%.1f", value);
+  }
+
+  private static String machine() {
+    String cpu = "unknown CPU";
+    try {
+      for (String line : Files.readAllLines(Path.of("/proc/cpuinfo"))) {
+        if (line.startsWith("model name")) {
+          cpu = line.substring(line.indexOf(':') + 1).trim();
+          break;
+        }
+      }
+    } catch (IOException e) {
+      // keep "unknown CPU"
+    }
+    return String.format(
+        Locale.ROOT,
+        "%s · %d cores · %s · %s %s · max heap %d MiB",
+        LocalDate.now(),
+        Runtime.getRuntime().availableProcessors(),
+        cpu,
+        System.getProperty("java.vm.name"),
+        System.getProperty("java.runtime.version"),
+        Runtime.getRuntime().maxMemory() >> 20);
+  }
+}
