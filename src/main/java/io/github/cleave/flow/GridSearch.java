@@ -170,7 +170,11 @@ final class GridSearch {
     }
   }
 
-  /** Every node with terminal residual becomes an active child of its terminal. */
+  /**
+   * Starts a solve from the present residuals: first saturates the paths source -> p -> q -> sink
+   * between neighbours, then makes every node with terminal residual a child of its terminal,
+   * active if it has a neighbour that is not a child of the same terminal.
+   */
   void initialiseTrees() {
     Arrays.fill(tree, FREE);
     Arrays.fill(parent, NO_PARENT);
@@ -181,15 +185,64 @@ final class GridSearch {
     lastActive = -1;
     orphans.clear();
     time = 0;
+    pushToNeighbours();
     for (int p = 0; p < terminal.length; p++) {
       int t = terminal[p];
       if (t != 0) {
         tree[p] = t > 0 ? SOURCE_TREE : SINK_TREE;
         parent[p] = TERMINAL_PARENT;
         dist[p] = 1;
-        activate(p);
+        if (onFront(p, t)) {
+          activate(p); // roots whose neighbours are all roots of the same tree cannot grow
+        }
       }
     }
+  }
+
+  /** True if a neighbour of root p is not a root of the same tree. */
+  private boolean onFront(int p, int t) {
+    for (int k = 0; k < directions; k++) {
+      int tq = terminal[p + offset[k]];
+      if (t > 0 ? tq <= 0 : tq >= 0) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  /**
+   * Pushes terminal excess straight to neighbours with the opposite excess: the augmenting paths
+   * source -> p -> q -> sink of length three, found without search trees.
+   */
+  private void pushToNeighbours() {
+    int[] res = residual;
+    int[] term = terminal;
+    int kk = directions;
+    long pushed = 0;
+    for (int p = 0; p < term.length; p++) {
+      int tp = term[p];
+      if (tp <= 0) {
+        continue;
+      }
+      int base = p * kk;
+      for (int k = 0; k < kk && tp > 0; k++) {
+        int r = res[base + k];
+        if (r > 0) {
+          int q = p + offset[k];
+          int tq = term[q];
+          if (tq < 0) {
+            int m = Math.min(Math.min(tp, -tq), r);
+            tp -= m;
+            term[q] = tq + m;
+            res[base + k] = r - m;
+            res[q * kk + (k ^ 1)] += m;
+            pushed += m;
+          }
+        }
+      }
+      term[p] = tp;
+    }
+    flow += pushed;
   }
 
   /** The main loop: growth, augmentation, adoption, until no active node is left. */
