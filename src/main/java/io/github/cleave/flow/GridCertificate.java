@@ -54,7 +54,7 @@ final class GridCertificate {
 
   /** Throws {@link CertificateViolation} naming the first condition that fails. */
   void check() {
-    int[] residual = search.residual;
+    Residuals residual = search.residual;
     int[] capacity = solver.capacity;
     long sourceFlow = solver.sourceSinkCapacity;
     for (int p = 0; p < g.paddedCount; p++) {
@@ -68,24 +68,24 @@ final class GridCertificate {
         int a = p * directions + k;
         int q = p + g.offset[k];
         int b = q * directions + (k ^ 1);
-        if (residual[a] < 0
-            || residual[b] < 0
-            || (long) residual[a] + residual[b] != (long) capacity[a] + capacity[b]) {
+        if (residual.get(a) < 0
+            || residual.get(b) < 0
+            || (long) residual.get(a) + residual.get(b) != (long) capacity[a] + capacity[b]) {
           throw violation(
               "arc pair between node "
                   + g.unpadded(p)
                   + " and its neighbour in direction "
                   + k
                   + " has residuals "
-                  + residual[a]
+                  + residual.get(a)
                   + ", "
-                  + residual[b]
+                  + residual.get(b)
                   + " but capacities "
                   + capacity[a]
                   + ", "
                   + capacity[b]);
         }
-        netOut += capacity[a] - residual[a];
+        netOut += capacity[a] - residual.get(a);
       }
       long cs = sourceCap(p);
       long ct = sinkCap(p);
@@ -137,7 +137,7 @@ final class GridCertificate {
     }
     for (int k = 0; k < directions; k++) {
       int a = p * directions + k;
-      if (search.residual[a] != 0 || solver.capacity[a] != 0) {
+      if (search.residual.get(a) != 0 || solver.capacity[a] != 0) {
         throw violation("border node " + p + " has a non-zero arc in direction " + k);
       }
     }
@@ -157,7 +157,7 @@ final class GridCertificate {
       int p = queue.poll();
       for (int k = 0; k < directions; k++) {
         int q = p + g.offset[k];
-        if (search.residual[p * directions + k] > 0 && !reached.get(q)) {
+        if (search.residual.get(p * directions + k) > 0 && !reached.get(q)) {
           reached.set(q);
           queue.add(q);
         }
@@ -222,7 +222,7 @@ final class GridCertificate {
           }
           for (int k = 0; k < directions; k++) {
             int a = p * directions + k;
-            long net = (long) solver.capacity[a] - search.residual[a];
+            long net = (long) solver.capacity[a] - search.residual.get(a);
             if (net > 0) {
               visitor.arc(node, g.unpadded(p + g.offset[k]), net);
             }

@@ -118,7 +118,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
   public GridMaxFlow(
       int width, int height, int depth, Neighborhood neighborhood, boolean retainCapacities) {
     this.layout = new GridLayout(width, height, depth, neighborhood);
-    this.search = new GridSearch(layout);
+    this.search = new GridSearch(layout, true);
     this.directions = layout.directions;
     this.offset = layout.offset;
     int n = layout.paddedCount;
@@ -270,11 +270,11 @@ public final class GridMaxFlow implements MaxFlowSolver {
     if (capacity == null) {
       checkNotSolved();
     }
-    int[] target = capacity != null ? capacity : search.residual;
     int p = layout.padded(node);
     int a = p * directions + k;
     int b = (p + offset[k]) * directions + (k ^ 1);
-    if ((long) cap + target[b] > Integer.MAX_VALUE) {
+    int reverse = stored(b);
+    if ((long) cap + reverse > Integer.MAX_VALUE) {
       throw new IllegalArgumentException(
           "arcs between node "
               + node
@@ -283,12 +283,15 @@ public final class GridMaxFlow implements MaxFlowSolver {
               + " have capacities "
               + cap
               + " and "
-              + target[b]
+              + reverse
               + "; their sum must not exceed "
               + Integer.MAX_VALUE);
     }
-    int old = target[a];
-    target[a] = cap;
+    if (capacity == null) {
+      fitResiduals((long) cap + reverse);
+    }
+    int old = stored(a);
+    store(a, cap);
     if (capacity != null && solved) {
       absorbNeighborChange(p, k, (long) cap - old);
     }
@@ -306,14 +309,15 @@ public final class GridMaxFlow implements MaxFlowSolver {
     int q = p + offset[k];
     int a = p * directions + k;
     int b = q * directions + (k ^ 1);
-    int[] residual = search.residual;
-    long r = residual[a] + delta;
+    fitResiduals((long) capacity[a] + capacity[b]);
+    Residuals residual = search.residual;
+    long r = residual.get(a) + delta;
     if (r >= 0) {
-      residual[a] = (int) r;
+      residual.set(a, (int) r);
     } else {
       long excess = -r;
-      residual[a] = 0;
-      residual[b] -= (int) excess;
+      residual.set(a, 0);
+      residual.set(b, residual.get(b) - (int) excess);
       addShift(p, excess);
       search.flow -= excess;
       absorbTerminalChange(p, excess, 0);
@@ -329,8 +333,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
     layout.checkNode(node);
     layout.checkDirection(k);
     checkCapacity(cap, "capacity of arc (" + node + ", " + k + ")");
-    int[] target = capacity != null ? capacity : search.residual;
-    long sum = target[layout.padded(node) * directions + k] + cap;
+    long sum = stored(layout.padded(node) * directions + k) + cap;
     if (sum > Integer.MAX_VALUE) {
       throw new IllegalArgumentException(
           "arcs from node "
@@ -391,7 +394,6 @@ public final class GridMaxFlow implements MaxFlowSolver {
     layout.checkDirection(k);
     checkLength(caps, "capacities of direction " + k);
     checkNotSolved();
-    int[] target = capacity != null ? capacity : search.residual;
     GridLayout g = layout;
     int dx = g.neighborhood.dx(k);
     int dy = g.neighborhood.dy(k);
@@ -406,11 +408,14 @@ public final class GridMaxFlow implements MaxFlowSolver {
         int p = g.padded(x0, y, z);
         for (int x = x0; x < x1; x++, p++, node++) {
           int c = caps[node];
-          int back = target[(p + step) * directions + reverse];
+          int back = stored((p + step) * directions + reverse);
           if (c < 0 || (long) c + back > Integer.MAX_VALUE) {
             setNeighborCapacity(node, k, c); // throws with the full message
           }
-          target[p * directions + k] = c;
+          if (capacity == null) {
+            fitResiduals(c + back);
+          }
+          store(p * directions + k, c);
         }
       }
     }
@@ -437,44 +442,105 @@ public final class GridMaxFlow implements MaxFlowSolver {
               + " directions");
     }
     checkNotSolved();
-    int[] target = capacity != null ? capacity : search.residual;
     GridLayout g = layout;
+    // Check every arc against its reverse on the caller's array, before anything is stored.
+    Neighborhood nb = g.neighborhood;
+    int[] nodeStep = new int[directions];
+    for (int k = 0; k < directions; k++) {
+      nodeStep[k] = nb.dx(k) + g.width * (nb.dy(k) + g.height * nb.dz(k));
+    }
+    int bits = 0; // the union of all bits: negative if any value is, else >= every value
+    for (int i = 0; i < caps.length; i++) {
+      bits |= caps[i];
+    }
+    long widestPair = 2L * bits; // an upper bound; exact below when it matters
+    if (bits < 0 || widestPair > Residuals.NARROW_MAX) {
+      widestPair = checkPairs(caps, nodeStep);
+    }
+    if (capacity == null) {
+      fitResiduals(widestPair);
+    }
     int node = 0;
     for (int z = 0; z < g.depth; z++) {
       for (int y = 0; y < g.height; y++) {
         int p = g.padded(0, y, z);
-        int rowStart = p * directions;
-        System.arraycopy(caps, node * directions, target, rowStart, g.width * directions);
+        if (capacity != null) {
+          System.arraycopy(caps, node * directions, capacity, p * directions, g.width * directions);
+        } else {
+          search.residual.copyFrom(caps, node * directions, p * directions, g.width * directions);
+        }
+        // Arcs that leave the grid stay closed; only nodes within reach of the border have any.
+        boolean borderRow =
+            y < g.reach || y >= g.height - g.reach || z < g.reachZ || z >= g.depth - g.reachZ;
+        for (int x = 0; x < g.width; x++) {
+          if (!borderRow && x == g.reach && g.width - g.reach > x) {
+            x = g.width - g.reach; // skip the interior of the row
+          }
+          for (int k = 0; k < directions; k++) {
+            if (!inside(x + nb.dx(k), y + nb.dy(k), z + nb.dz(k))) {
+              store((p + x) * directions + k, 0);
+            }
+          }
+        }
         node += g.width;
       }
     }
-    // Arcs that leave the grid must stay closed, and each arc pair must fit in an int.
+    generation++;
+  }
+
+  /**
+   * Checks every arc of an interleaved capacity array against its reverse; returns the largest sum
+   * of an arc pair.
+   */
+  private long checkPairs(int[] caps, int[] nodeStep) {
+    GridLayout g = layout;
     Neighborhood nb = g.neighborhood;
-    node = 0;
+    long widestPair = 0;
+    int node = 0;
     for (int z = 0; z < g.depth; z++) {
       for (int y = 0; y < g.height; y++) {
-        int p = g.padded(0, y, z);
-        for (int x = 0; x < g.width; x++, p++, node++) {
-          int base = p * directions;
+        for (int x = 0; x < g.width; x++, node++) {
+          int base = node * directions;
           for (int k = 0; k < directions; k++) {
-            int c = target[base + k];
-            int qx = x + nb.dx(k);
-            int qy = y + nb.dy(k);
-            int qz = z + nb.dz(k);
-            if (qx < 0 || qx >= g.width || qy < 0 || qy >= g.height || qz < 0 || qz >= g.depth) {
-              target[base + k] = 0;
+            int c = caps[base + k];
+            if (c == 0 || !inside(x + nb.dx(k), y + nb.dy(k), z + nb.dz(k))) {
               continue;
             }
-            int back = target[(p + offset[k]) * directions + (k ^ 1)];
-            if (c < 0 || c + back < 0) {
-              target[base + k] = 0;
+            int back = caps[(node + nodeStep[k]) * directions + (k ^ 1)];
+            long pair = (long) c + Math.max(back, 0);
+            if (c < 0 || pair > Integer.MAX_VALUE) {
               setNeighborCapacity(node, k, c); // throws with the full message
             }
+            widestPair = Math.max(widestPair, pair);
           }
         }
       }
     }
-    generation++;
+    return widestPair;
+  }
+
+  private boolean inside(int x, int y, int z) {
+    return x >= 0 && x < layout.width && y >= 0 && y < layout.height && z >= 0 && z < layout.depth;
+  }
+
+  /** Capacity of arc a as the caller set it: retained, or the residual before the first solve. */
+  private int stored(int a) {
+    return capacity != null ? capacity[a] : search.residual.get(a);
+  }
+
+  private void store(int a, int value) {
+    if (capacity != null) {
+      capacity[a] = value;
+    } else {
+      search.residual.set(a, value);
+    }
+  }
+
+  /** Widens the residuals to 32 bits if an arc pair with capacities summing to pair needs it. */
+  private void fitResiduals(long pair) {
+    if (pair > search.residual.maxValue()) {
+      search.widenResiduals();
+    }
   }
 
   private void checkLength(int[] values, String what) {
@@ -532,7 +598,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
 
   /** Width in bits of the stored residual capacities. */
   public int capacityWidth() {
-    return 32;
+    return search.residualWidth();
   }
 
   /** Bytes of the retained capacities alone (0 when not retaining). */
@@ -611,9 +677,9 @@ public final class GridMaxFlow implements MaxFlowSolver {
 
   /** Residuals from the retained capacities, zero flow. */
   private void loadCapacities() {
-    int[] residual = search.residual;
+    fitResiduals(widestPair());
     int[] terminal = search.terminal;
-    System.arraycopy(capacity, 0, residual, 0, capacity.length);
+    search.residual.copyFrom(capacity, 0, 0, capacity.length);
     shift = null;
     long f = sourceSinkCapacity;
     for (int p = 0; p < terminal.length; p++) {
@@ -623,6 +689,30 @@ public final class GridMaxFlow implements MaxFlowSolver {
       f += Math.min(cs, ct);
     }
     search.flow = f;
+  }
+
+  /** Largest sum of the capacities of an arc and its reverse (an upper bound when cheap). */
+  private long widestPair() {
+    int bits = 0; // >= every capacity, all of which are >= 0
+    for (int i = 0; i < capacity.length; i++) {
+      bits |= capacity[i];
+    }
+    if (2L * bits <= Residuals.NARROW_MAX) {
+      return 2L * bits;
+    }
+    long pair = 0;
+    for (int p = 0; p < layout.paddedCount; p++) {
+      for (int k = 0; k < directions; k += 2) {
+        int a = p * directions + k;
+        if (capacity[a] != 0) {
+          int q = p + offset[k];
+          if (q >= 0 && q < layout.paddedCount) {
+            pair = Math.max(pair, (long) capacity[a] + capacity[q * directions + (k ^ 1)]);
+          }
+        }
+      }
+    }
+    return pair;
   }
 
   private void checkNotSolved() {

@@ -32,7 +32,7 @@ final class GridSearch {
   private final int[] offset; // offset[k]: padded index difference to the neighbour in direction k
 
   // Network state, indexed by padded node p (arcs by p * K + k).
-  final int[] residual; // >= 0; residual of arc p -> p + offset[k]; 0 on arcs touching the border
+  Residuals residual; // >= 0; residual of arc p -> p + offset[k]; 0 on arcs touching the border
   final int[] terminal; // > 0 residual source->p, < 0 minus residual p->sink; 0 on the border
   long flow; // flow value of the network the caller sees (see GridMaxFlow on reparametrisation)
 
@@ -55,20 +55,29 @@ final class GridSearch {
   long orphansAdopted;
   long orphansFreed;
 
-  GridSearch(GridLayout layout) {
+  GridSearch(GridLayout layout, boolean narrow) {
     this.layout = layout;
     this.directions = layout.directions;
     this.offset = layout.offset;
     int n = layout.paddedCount;
-    this.residual = new int[n * directions];
+    this.residual = Residuals.create(n * directions, narrow);
     this.terminal = new int[n];
     this.tree = new byte[n];
     this.parent = new byte[n];
     this.mark = new int[n];
     this.dist = new int[n];
-    this.nextActive = new int[n];
-    Arrays.fill(nextActive, NOT_ACTIVE);
+    this.nextActive = new int[n]; // filled with NOT_ACTIVE when a solve starts
     this.orphans = new IntFifo(1024);
+  }
+
+  /** Width of the stored residuals, 16 or 32 bits. */
+  int residualWidth() {
+    return residual.width();
+  }
+
+  /** Switches to 32-bit residuals (a no-op if they are already). */
+  void widenResiduals() {
+    residual = residual.widened();
   }
 
   /**
@@ -146,9 +155,9 @@ final class GridSearch {
 
   private boolean parentArcOpen(int p, int d) {
     if (tree[p] == SOURCE_TREE) {
-      return residual[(p + offset[d]) * directions + (d ^ 1)] > 0;
+      return residual.get((p + offset[d]) * directions + (d ^ 1)) > 0;
     }
-    return residual[p * directions + d] > 0;
+    return residual.get(p * directions + d) > 0;
   }
 
   private void activateTreeNeighbours(int p) {
@@ -215,7 +224,7 @@ final class GridSearch {
    * source -> p -> q -> sink of length three, found without search trees.
    */
   private void pushToNeighbours() {
-    int[] res = residual;
+    Residuals res = residual;
     int[] term = terminal;
     int kk = directions;
     long pushed = 0;
@@ -226,7 +235,7 @@ final class GridSearch {
       }
       int base = p * kk;
       for (int k = 0; k < kk && tp > 0; k++) {
-        int r = res[base + k];
+        int r = res.get(base + k);
         if (r > 0) {
           int q = p + offset[k];
           int tq = term[q];
@@ -234,8 +243,9 @@ final class GridSearch {
             int m = Math.min(Math.min(tp, -tq), r);
             tp -= m;
             term[q] = tq + m;
-            res[base + k] = r - m;
-            res[q * kk + (k ^ 1)] += m;
+            res.set(base + k, r - m);
+            int b = q * kk + (k ^ 1);
+            res.set(b, res.get(b) + m);
             pushed += m;
           }
         }
@@ -277,7 +287,7 @@ final class GridSearch {
   private boolean growSource(int p) {
     int base = p * directions;
     for (int k = 0; k < directions; k++) {
-      if (residual[base + k] > 0) {
+      if (residual.get(base + k) > 0) {
         int q = p + offset[k];
         byte tq = tree[q];
         if (tq == FREE) {
@@ -304,7 +314,7 @@ final class GridSearch {
   private boolean growSink(int p) {
     for (int k = 0; k < directions; k++) {
       int q = p + offset[k];
-      if (residual[q * directions + (k ^ 1)] > 0) {
+      if (residual.get(q * directions + (k ^ 1)) > 0) {
         byte tq = tree[q];
         if (tq == FREE) {
           tree[q] = SINK_TREE;
@@ -330,7 +340,9 @@ final class GridSearch {
   private void augment() {
     int tail = pathTail;
     int head = tail + offset[pathDirection];
-    int bottleneck = residual[tail * directions + pathDirection];
+    Residuals res = residual;
+    int first = tail * directions + pathDirection;
+    int bottleneck = res.get(first);
     for (int i = tail; ; ) {
       byte d = parent[i];
       if (d == TERMINAL_PARENT) {
@@ -338,7 +350,7 @@ final class GridSearch {
         break;
       }
       int j = i + offset[d];
-      bottleneck = Math.min(bottleneck, residual[j * directions + (d ^ 1)]);
+      bottleneck = Math.min(bottleneck, res.get(j * directions + (d ^ 1)));
       i = j;
     }
     for (int i = head; ; ) {
@@ -347,11 +359,12 @@ final class GridSearch {
         bottleneck = Math.min(bottleneck, -terminal[i]);
         break;
       }
-      bottleneck = Math.min(bottleneck, residual[i * directions + d]);
+      bottleneck = Math.min(bottleneck, res.get(i * directions + d));
       i += offset[d];
     }
-    residual[tail * directions + pathDirection] -= bottleneck;
-    residual[head * directions + (pathDirection ^ 1)] += bottleneck;
+    res.set(first, res.get(first) - bottleneck);
+    int back = head * directions + (pathDirection ^ 1);
+    res.set(back, res.get(back) + bottleneck);
     for (int i = tail; ; ) {
       byte d = parent[i];
       if (d == TERMINAL_PARENT) {
@@ -362,8 +375,12 @@ final class GridSearch {
         break;
       }
       int j = i + offset[d];
-      residual[i * directions + d] += bottleneck;
-      if ((residual[j * directions + (d ^ 1)] -= bottleneck) == 0) {
+      int up = i * directions + d;
+      int down = j * directions + (d ^ 1);
+      res.set(up, res.get(up) + bottleneck);
+      int left = res.get(down) - bottleneck;
+      res.set(down, left);
+      if (left == 0) {
         makeOrphan(i);
       }
       i = j;
@@ -378,8 +395,12 @@ final class GridSearch {
         break;
       }
       int j = i + offset[d];
-      residual[j * directions + (d ^ 1)] += bottleneck;
-      if ((residual[i * directions + d] -= bottleneck) == 0) {
+      int up = j * directions + (d ^ 1);
+      int down = i * directions + d;
+      res.set(up, res.get(up) + bottleneck);
+      int left = res.get(down) - bottleneck;
+      res.set(down, left);
+      if (left == 0) {
         makeOrphan(i);
       }
       i = j;
@@ -415,7 +436,7 @@ final class GridSearch {
     int bestDistance = INFINITE_DISTANCE;
     for (int k = 0; k < directions; k++) {
       int q = p + offset[k];
-      if (tree[q] == SOURCE_TREE && residual[q * directions + (k ^ 1)] > 0) {
+      if (tree[q] == SOURCE_TREE && residual.get(q * directions + (k ^ 1)) > 0) {
         int d = distanceToTerminal(q);
         if (d < bestDistance) {
           bestDistance = d;
@@ -433,7 +454,7 @@ final class GridSearch {
     for (int k = 0; k < directions; k++) {
       int q = p + offset[k];
       if (tree[q] == SOURCE_TREE) {
-        if (residual[q * directions + (k ^ 1)] > 0) {
+        if (residual.get(q * directions + (k ^ 1)) > 0) {
           activate(q);
         }
         if (parent[q] == (byte) (k ^ 1)) {
@@ -455,7 +476,7 @@ final class GridSearch {
     int bestDistance = INFINITE_DISTANCE;
     for (int k = 0; k < directions; k++) {
       int q = p + offset[k];
-      if (tree[q] == SINK_TREE && residual[base + k] > 0) {
+      if (tree[q] == SINK_TREE && residual.get(base + k) > 0) {
         int d = distanceToTerminal(q);
         if (d < bestDistance) {
           bestDistance = d;
@@ -473,7 +494,7 @@ final class GridSearch {
     for (int k = 0; k < directions; k++) {
       int q = p + offset[k];
       if (tree[q] == SINK_TREE) {
-        if (residual[base + k] > 0) {
+        if (residual.get(base + k) > 0) {
           activate(q);
         }
         if (parent[q] == (byte) (k ^ 1)) {
@@ -553,7 +574,7 @@ final class GridSearch {
   /** Bytes held by the arrays of the residual network and the search state. */
   long stateBytes() {
     long n = terminal.length;
-    return 4L * residual.length + n * (4 + 1 + 1 + 4 + 4 + 4) + 4L * orphans.capacity();
+    return residual.bytes() + n * (4 + 1 + 1 + 4 + 4 + 4) + 4L * orphans.capacity();
   }
 
   /** Source side of the cut: the nodes of S, in public numbering. */

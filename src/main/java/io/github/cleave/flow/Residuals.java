@@ -1,0 +1,142 @@
+package io.github.cleave.flow;
+
+/**
+ * The residual capacities of a grid's neighbour arcs, {@code residual[p * K + k]}, stored 16 or 32
+ * bits wide. The 16-bit form holds 0..65535 and halves the memory and cache traffic of the solver's
+ * largest array; it is usable when every arc and its reverse have capacities summing to at most
+ * 65535, since pushing flow only moves residual between the two. Callers keep values within {@link
+ * #maxValue()} and {@link GridSearch} widens to 32 bits when a capacity change would leave it.
+ */
+abstract sealed class Residuals permits Residuals.Narrow, Residuals.Wide {
+  /** Largest value of the 16-bit form. */
+  static final int NARROW_MAX = 0xFFFF;
+
+  static Residuals create(int length, boolean narrow) {
+    return narrow ? new Narrow(new char[length]) : new Wide(new int[length]);
+  }
+
+  abstract int get(int a);
+
+  /** Stores {@code v}, {@code 0 <= v <= maxValue()}. */
+  abstract void set(int a, int v);
+
+  abstract int length();
+
+  /** 65535 or {@code Integer.MAX_VALUE}. */
+  abstract int maxValue();
+
+  /** 16 or 32. */
+  abstract int width();
+
+  abstract long bytes();
+
+  /** Copies {@code length} values of {@code source} from {@code from} to {@code to}. */
+  abstract void copyFrom(int[] source, int from, int to, int length);
+
+  /** A 32-bit copy. */
+  abstract Wide widened();
+
+  /** 16-bit residuals. */
+  static final class Narrow extends Residuals {
+    private final char[] values;
+
+    Narrow(char[] values) {
+      this.values = values;
+    }
+
+    @Override
+    int get(int a) {
+      return values[a];
+    }
+
+    @Override
+    void set(int a, int v) {
+      values[a] = (char) v;
+    }
+
+    @Override
+    int length() {
+      return values.length;
+    }
+
+    @Override
+    int maxValue() {
+      return NARROW_MAX;
+    }
+
+    @Override
+    int width() {
+      return 16;
+    }
+
+    @Override
+    long bytes() {
+      return 2L * values.length;
+    }
+
+    @Override
+    void copyFrom(int[] source, int from, int to, int length) {
+      for (int i = 0; i < length; i++) {
+        values[to + i] = (char) source[from + i];
+      }
+    }
+
+    @Override
+    Wide widened() {
+      int[] wide = new int[values.length];
+      for (int i = 0; i < wide.length; i++) {
+        wide[i] = values[i];
+      }
+      return new Wide(wide);
+    }
+  }
+
+  /** 32-bit residuals. */
+  static final class Wide extends Residuals {
+    private final int[] values;
+
+    Wide(int[] values) {
+      this.values = values;
+    }
+
+    @Override
+    int get(int a) {
+      return values[a];
+    }
+
+    @Override
+    void set(int a, int v) {
+      values[a] = v;
+    }
+
+    @Override
+    int length() {
+      return values.length;
+    }
+
+    @Override
+    int maxValue() {
+      return Integer.MAX_VALUE;
+    }
+
+    @Override
+    int width() {
+      return 32;
+    }
+
+    @Override
+    long bytes() {
+      return 4L * values.length;
+    }
+
+    @Override
+    void copyFrom(int[] source, int from, int to, int length) {
+      System.arraycopy(source, from, values, to, length);
+    }
+
+    @Override
+    Wide widened() {
+      return this;
+    }
+  }
+}
