@@ -4,12 +4,15 @@ package io.github.cleave.flow;
  * Index arithmetic of a grid stored with a border of dead nodes.
  *
  * <p>The public node index of pixel (x, y, z) is {@code x + width * (y + height * z)}. Internally
- * the grid is padded on every side by {@code reach} nodes (the largest neighbour offset) along x
- * and y, and along z for 3D neighbourhoods, so that every neighbour of a real node is an array
- * element and the hot loops need no bounds checks: padded index of (x, y, z) is {@code (x + r) +
- * paddedWidth * ((y + r) + paddedHeight * (z + rz))}, and the neighbour of padded node {@code p} in
- * direction {@code k} is {@code p + offset[k]}. Border nodes have zero capacities and never join a
- * search tree.
+ * every row starts with {@code r = reach} dead nodes (the largest neighbour offset), every plane
+ * with {@code r} dead rows, and in 3D the volume has {@code r} dead planes at each end, so that
+ * every neighbour of a real node is an array element and the hot loops need no bounds checks: the
+ * padded index of (x, y, z) is {@code (x + r) + paddedWidth * ((y + r) + paddedHeight * (z + rz))}
+ * with {@code paddedWidth = width + r} and {@code paddedHeight = height + r}, and the neighbour of
+ * padded node {@code p} in direction {@code k} is {@code p + offset[k]}. A step past the end of a
+ * row lands in the dead nodes that start the next row (and past the last row of a plane, in the
+ * dead rows that start the next plane), so the padding between rows is shared; a short dead tail
+ * covers the steps past the last row. Dead nodes have zero capacities and never join a search tree.
  */
 final class GridLayout {
   final int width;
@@ -45,10 +48,11 @@ final class GridLayout {
     this.directions = neighborhood.size();
     this.reach = neighborhood.reach();
     this.reachZ = neighborhood.isThreeDimensional() ? reach : 0;
-    this.paddedWidth = width + 2 * reach;
-    this.paddedHeight = height + 2 * reach;
+    this.paddedWidth = width + reach;
+    this.paddedHeight = height + reach;
     this.paddedDepth = depth + 2 * reachZ;
-    long padded = (long) paddedWidth * paddedHeight * paddedDepth;
+    long padded =
+        (long) paddedWidth * paddedHeight * paddedDepth + (long) paddedWidth * reach + reach;
     long arcs = padded * directions;
     if (arcs > Integer.MAX_VALUE - 16) {
       throw new IllegalArgumentException(
