@@ -702,7 +702,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
     }
     long pair = 0;
     for (int p = 0; p < layout.paddedCount; p++) {
-      for (int k = 0; k < directions; k += 2) {
+      for (int k = 0; k < directions; k++) {
         int a = p * directions + k;
         if (capacity[a] != 0) {
           int q = p + offset[k];
