@@ -80,6 +80,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
   private int time;
   private long flow;
   private int pathArc; // arc from S to T found by growth
+  private int pathArcAt; // position in the grown node's arc range where it was found
 
   private long augmentations;
   private long orphansAdopted;
@@ -225,16 +226,21 @@ public final class SparseMaxFlow implements MaxFlowSolver {
         return SolveStatus.INTERRUPTED;
       }
       int p;
+      int from;
       if (current >= 0 && tree[current] != FREE) {
+        // Continue where the last path was found: the arcs scanned before it still lead into the
+        // node's own tree or are saturated, and a change there re-activates the node.
         p = current;
+        from = pathArcAt;
       } else {
         p = nextActiveNode();
         if (p < 0) {
           return SolveStatus.OPTIMAL;
         }
+        from = first[p];
       }
       current = -1;
-      boolean found = tree[p] == SOURCE_TREE ? growSource(p) : growSink(p);
+      boolean found = tree[p] == SOURCE_TREE ? growSource(p, from) : growSink(p, from);
       if (found) {
         current = p;
         time++;
@@ -244,8 +250,8 @@ public final class SparseMaxFlow implements MaxFlowSolver {
     }
   }
 
-  private boolean growSource(int p) {
-    for (int a = first[p], end = first[p + 1]; a < end; a++) {
+  private boolean growSource(int p, int from) {
+    for (int a = from, end = first[p + 1]; a < end; a++) {
       if (residual[a] > 0) {
         int q = arcHead[a];
         byte tq = tree[q];
@@ -257,6 +263,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
           activate(q);
         } else if (tq == SINK_TREE) {
           pathArc = a;
+          pathArcAt = a;
           return true;
         } else if (mark[q] <= mark[p] && dist[q] > dist[p] && parentArc[q] >= 0) {
           parentArc[q] = sister[a];
@@ -268,8 +275,8 @@ public final class SparseMaxFlow implements MaxFlowSolver {
     return false;
   }
 
-  private boolean growSink(int p) {
-    for (int a = first[p], end = first[p + 1]; a < end; a++) {
+  private boolean growSink(int p, int from) {
+    for (int a = from, end = first[p + 1]; a < end; a++) {
       int back = sister[a];
       if (residual[back] > 0) {
         int q = arcHead[a];
@@ -282,6 +289,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
           activate(q);
         } else if (tq == SOURCE_TREE) {
           pathArc = back;
+          pathArcAt = a;
           return true;
         } else if (mark[q] <= mark[p] && dist[q] > dist[p] && parentArc[q] >= 0) {
           parentArc[q] = back;

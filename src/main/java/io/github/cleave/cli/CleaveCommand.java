@@ -1,0 +1,69 @@
+package io.github.cleave.cli;
+
+import java.io.PrintWriter;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/**
+ * The {@code cleave} command line: subcommands for solving and generating max-flow problems (and,
+ * as they arrive, for segmenting images). Errors in the arguments or the input are reported as one
+ * line on standard error with exit code 2; see {@link ExitCodes}.
+ */
+@Command(
+    name = "cleave",
+    mixinStandardHelpOptions = true,
+    versionProvider = CleaveCommand.Version.class,
+    description = {
+      "Seeded minimum-cut segmentation of microscope images, and its max-flow engine.",
+      "Research tool, not a diagnostic device: validate segmentations against expert"
+          + " annotation; local rules and licensed practice govern any clinical use."
+    },
+    subcommands = {MaxflowCommand.class, MakeMaxflowCommand.class, CommandLine.HelpCommand.class})
+public final class CleaveCommand implements Runnable {
+
+  /** Runs the command line and exits with its exit code. */
+  public static void main(String[] args) {
+    System.exit(newCommandLine().execute(args));
+  }
+
+  /** A configured command line; tests call {@code execute} on it with their own writers. */
+  public static CommandLine newCommandLine() {
+    CommandLine cl = new CommandLine(new CleaveCommand());
+    cl.setParameterExceptionHandler(
+        (ex, args) -> {
+          PrintWriter err = ex.getCommandLine().getErr();
+          err.println(
+              "cleave: "
+                  + ex.getMessage()
+                  + " (see '"
+                  + ex.getCommandLine().getCommandSpec().qualifiedName()
+                  + " --help')");
+          return ExitCodes.BAD_INPUT;
+        });
+    cl.setExecutionExceptionHandler(
+        (ex, commandLine, parseResult) -> {
+          if (ex instanceof InputException) {
+            commandLine.getErr().println("cleave: " + ex.getMessage());
+            return ExitCodes.BAD_INPUT;
+          }
+          throw ex;
+        });
+    return cl;
+  }
+
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
+
+  @Override
+  public void run() {
+    throw new CommandLine.ParameterException(spec.commandLine(), "a command is missing");
+  }
+
+  /** The version from the jar manifest, or "development" when run from classes. */
+  static final class Version implements CommandLine.IVersionProvider {
+    @Override
+    public String[] getVersion() {
+      String v = CleaveCommand.class.getPackage().getImplementationVersion();
+      return new String[] {"cleave " + (v == null ? "development" : v)};
+    }
+  }
+}
