@@ -20,7 +20,8 @@ import java.util.Map;
  * {@link BenchInstance}), {@code solvers=cleave,or-tools,jgrapht-bk}, {@code repeats=5} (this
  * engine), {@code reference-repeats=3} (the others), {@code jgrapht-max-nodes=1100000} (JGraphT
  * needs several hundred bytes per node and minutes per solve beyond that), {@code out=FILE} (also
- * write the table there).
+ * write the table there), {@code dynamic=2d-1024-n8-ordinary} (instance for the dynamic re-solve
+ * rows; empty for none).
  */
 public final class GridBenchmark {
   private GridBenchmark() {}
@@ -33,6 +34,7 @@ public final class GridBenchmark {
     options.put("reference-repeats", "3");
     options.put("jgrapht-max-nodes", "1100000");
     options.put("out", "");
+    options.put("dynamic", "2d-1024-n8-ordinary");
     for (String arg : args) {
       if (arg.equals("all")) {
         continue;
@@ -88,6 +90,20 @@ public final class GridBenchmark {
         System.out.println(line);
         lines.add(line);
       }
+    }
+    if (!options.get("dynamic").isEmpty()) {
+      String name = options.get("dynamic");
+      List<String> dynamic = new ArrayList<>();
+      dynamic.add("");
+      dynamic.add(
+          "| instance | change | arcs or nodes changed | re-solve ms | scratch solve ms | ratio |"
+              + " same flow |");
+      dynamic.add("|---|---|---:|---:|---:|---:|---|");
+      dynamic.addAll(DynamicRows.run(name, BenchInstance.parse(name).generate(), repeats));
+      for (String line : dynamic) {
+        System.out.println(line);
+      }
+      lines.addAll(dynamic);
     }
     if (!options.get("out").isEmpty()) {
       Files.write(Path.of(options.get("out")), lines);

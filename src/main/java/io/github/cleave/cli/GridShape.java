@@ -1,5 +1,6 @@
 package io.github.cleave.cli;
 
+import io.github.cleave.flow.Neighborhood;
 import picocli.CommandLine.ITypeConverter;
 import picocli.CommandLine.TypeConversionException;
 
@@ -14,6 +15,32 @@ record GridShape(int width, int height, int depth) {
 
   long pixels() {
     return (long) width * height * depth;
+  }
+
+  /**
+   * The neighbourhood named on the command line by its size {@code k} (null: 8 in 2D, 6 in 3D),
+   * checked against this grid's dimension.
+   *
+   * @throws IllegalArgumentException with a message for the user if it does not exist or fit
+   */
+  Neighborhood neighborhood(Integer k) {
+    int size = k != null ? k : depth > 1 ? 6 : 8;
+    Neighborhood nb;
+    try {
+      nb = Neighborhood.of(size);
+    } catch (IllegalArgumentException e) {
+      throw new IllegalArgumentException(
+          "--neighborhood " + size + ": use 4, 8 or 16 in 2D, 6, 18 or 26 in 3D");
+    }
+    if (depth > 1 && !nb.isThreeDimensional()) {
+      throw new IllegalArgumentException(
+          "--neighborhood "
+              + size
+              + " is two-dimensional but the grid has depth "
+              + depth
+              + "; use 6, 18 or 26");
+    }
+    return nb;
   }
 
   @Override

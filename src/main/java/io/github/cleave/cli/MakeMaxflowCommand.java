@@ -79,13 +79,11 @@ final class MakeMaxflowCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws IOException {
-    int k = neighborhood != null ? neighborhood : grid.depth() > 1 ? 6 : 8;
     Neighborhood nb;
     try {
-      nb = Neighborhood.of(k);
+      nb = grid.neighborhood(neighborhood);
     } catch (IllegalArgumentException e) {
-      throw new ParameterException(
-          spec.commandLine(), "--neighborhood " + k + ": use 4, 8 or 16 in 2D, 6, 18 or 26 in 3D");
+      throw new ParameterException(spec.commandLine(), e.getMessage());
     }
     if (Files.exists(output) && !force) {
       throw new InputException(
@@ -109,7 +107,7 @@ final class MakeMaxflowCommand implements Callable<Integer> {
             + ","
             + grid.depth()
             + " --neighborhood "
-            + k
+            + nb.size()
             + " --flavour "
             + flavour
             + " --seed "

@@ -154,24 +154,11 @@ final class MaxflowCommand implements Callable<Integer> {
       }
       return null;
     }
-    int k = neighborhood != null ? neighborhood : grid.depth() > 1 ? 6 : 8;
-    Neighborhood nb;
     try {
-      nb = Neighborhood.of(k);
+      return grid.neighborhood(neighborhood);
     } catch (IllegalArgumentException e) {
-      throw new ParameterException(
-          spec.commandLine(), "--neighborhood " + k + ": use 4, 8 or 16 in 2D, 6, 18 or 26 in 3D");
+      throw new ParameterException(spec.commandLine(), e.getMessage());
     }
-    if (grid.depth() > 1 && !nb.isThreeDimensional()) {
-      throw new ParameterException(
-          spec.commandLine(),
-          "--neighborhood "
-              + k
-              + " is two-dimensional but --grid has depth "
-              + grid.depth()
-              + "; use 6, 18 or 26");
-    }
-    return nb;
   }
 
   private LoadedProblem load(Neighborhood nb) {

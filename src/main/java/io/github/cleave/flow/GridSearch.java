@@ -23,7 +23,6 @@ final class GridSearch {
   static final byte NO_PARENT = -1;
   static final byte TERMINAL_PARENT = -2;
   static final byte ORPHAN = -3;
-  private static final int NOT_ACTIVE = -1;
   private static final int INFINITE_DISTANCE = Integer.MAX_VALUE;
   private static final int INTERRUPT_CHECK_MASK = 0xFFF;
 
@@ -41,9 +40,7 @@ final class GridSearch {
   final byte[] parent; // direction k towards the parent, TERMINAL_PARENT, ORPHAN, or NO_PARENT
   private final int[] mark; // time at which dist was last known exact; <= time
   private final int[] dist; // distance (arcs) to the tree's terminal, valid if mark == time
-  private final int[] nextActive; // active FIFO link; NOT_ACTIVE if not queued, itself if last
-  private int firstActive = -1; // head of the active FIFO, -1 if empty
-  private int lastActive = -1; // tail of the active FIFO, -1 if empty
+  private final ActiveQueue active; // nodes whose neighbourhood growth must scan
   private final IntFifo orphans; // nodes whose parent arc was saturated, parent == ORPHAN
   private int time; // incremented at every augmentation
 
@@ -66,7 +63,7 @@ final class GridSearch {
     this.parent = new byte[n];
     this.mark = new int[n];
     this.dist = new int[n];
-    this.nextActive = new int[n]; // filled with NOT_ACTIVE when a solve starts
+    this.active = new ActiveQueue(n);
     this.orphans = new IntFifo(1024);
   }
 
@@ -189,9 +186,7 @@ final class GridSearch {
     Arrays.fill(parent, NO_PARENT);
     Arrays.fill(mark, 0);
     Arrays.fill(dist, 0);
-    Arrays.fill(nextActive, NOT_ACTIVE);
-    firstActive = -1;
-    lastActive = -1;
+    active.clear();
     orphans.clear();
     time = 0;
     pushToNeighbours();
@@ -541,29 +536,12 @@ final class GridSearch {
   }
 
   private void activate(int p) {
-    if (nextActive[p] == NOT_ACTIVE) {
-      if (lastActive < 0) {
-        firstActive = p;
-      } else {
-        nextActive[lastActive] = p;
-      }
-      nextActive[p] = p;
-      lastActive = p;
-    }
+    active.add(p);
   }
 
   /** Removes and returns the next active node still in a tree, or -1 if none is left. */
   private int nextActiveNode() {
-    while (firstActive >= 0) {
-      int p = firstActive;
-      int next = nextActive[p];
-      nextActive[p] = NOT_ACTIVE;
-      if (next == p) {
-        firstActive = -1;
-        lastActive = -1;
-      } else {
-        firstActive = next;
-      }
+    for (int p = active.poll(); p >= 0; p = active.poll()) {
       if (tree[p] != FREE) {
         return p;
       }

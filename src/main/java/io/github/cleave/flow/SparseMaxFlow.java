@@ -48,7 +48,6 @@ public final class SparseMaxFlow implements MaxFlowSolver {
   private static final int NO_PARENT = -1;
   private static final int TERMINAL = -2;
   private static final int ORPHAN = -3;
-  private static final int NOT_ACTIVE = -1;
   private static final int INFINITE_DISTANCE = Integer.MAX_VALUE;
   private static final int INTERRUPT_CHECK_MASK = 0xFFF;
 
@@ -73,9 +72,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
   private final int[] parentArc; // arc from the node to its parent, TERMINAL, ORPHAN or NO_PARENT
   private final int[] mark;
   private final int[] dist;
-  private final int[] nextActive;
-  private int firstActive = -1;
-  private int lastActive = -1;
+  private final ActiveQueue active; // nodes whose neighbourhood growth must scan
   private final IntFifo orphans = new IntFifo(1024);
   private int time;
   private long flow;
@@ -134,7 +131,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
     this.parentArc = new int[nodeCount];
     this.mark = new int[nodeCount];
     this.dist = new int[nodeCount];
-    this.nextActive = new int[nodeCount];
+    this.active = new ActiveQueue(nodeCount);
   }
 
   @Override
@@ -205,9 +202,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
     Arrays.fill(parentArc, NO_PARENT);
     Arrays.fill(mark, 0);
     Arrays.fill(dist, 0);
-    Arrays.fill(nextActive, NOT_ACTIVE);
-    firstActive = -1;
-    lastActive = -1;
+    active.clear();
     orphans.clear();
     time = 0;
     tree[source] = SOURCE_TREE;
@@ -430,28 +425,12 @@ public final class SparseMaxFlow implements MaxFlowSolver {
   }
 
   private void activate(int p) {
-    if (nextActive[p] == NOT_ACTIVE) {
-      if (lastActive < 0) {
-        firstActive = p;
-      } else {
-        nextActive[lastActive] = p;
-      }
-      nextActive[p] = p;
-      lastActive = p;
-    }
+    active.add(p);
   }
 
+  /** Removes and returns the next active node still in a tree, or -1 if none is left. */
   private int nextActiveNode() {
-    while (firstActive >= 0) {
-      int p = firstActive;
-      int next = nextActive[p];
-      nextActive[p] = NOT_ACTIVE;
-      if (next == p) {
-        firstActive = -1;
-        lastActive = -1;
-      } else {
-        firstActive = next;
-      }
+    for (int p = active.poll(); p >= 0; p = active.poll()) {
       if (tree[p] != FREE) {
         return p;
       }

@@ -309,6 +309,30 @@ public final class SyntheticGridProblem {
     return arcs;
   }
 
+  /**
+   * A copy with every capacity multiplied by {@code factor} (so with the same minimum cut and
+   * {@code factor} times the flow), saturating at {@code Integer.MAX_VALUE / 2}; benchmarks use it
+   * to exercise 32-bit residuals on the same instance.
+   *
+   * @throws IllegalArgumentException if {@code factor < 1}
+   */
+  public SyntheticGridProblem scaled(int factor) {
+    if (factor < 1) {
+      throw new IllegalArgumentException("scale factor " + factor + "; it must be at least 1");
+    }
+    SyntheticGridProblem copy = new SyntheticGridProblem(width, height, depth, neighborhood);
+    scale(sourceCapacity, copy.sourceCapacity, factor);
+    scale(sinkCapacity, copy.sinkCapacity, factor);
+    scale(neighborCapacity, copy.neighborCapacity, factor);
+    return copy;
+  }
+
+  private static void scale(int[] from, int[] to, int factor) {
+    for (int i = 0; i < from.length; i++) {
+      to[i] = (int) Math.min((long) from[i] * factor, Integer.MAX_VALUE / 2);
+    }
+  }
+
   /** A new solver holding this problem's capacities (built with the bulk setters). */
   public GridMaxFlow toSolver(boolean retainCapacities) {
     GridMaxFlow solver = new GridMaxFlow(width, height, depth, neighborhood, retainCapacities);
