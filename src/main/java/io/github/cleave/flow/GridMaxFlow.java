@@ -71,7 +71,6 @@ import java.util.BitSet;
  *
  * <p>Not thread-safe.
  */
-/** Node id of the source terminal in {@link MaxFlowResult#visitArcFlows}. */
 public final class GridMaxFlow implements MaxFlowSolver {
   /** Node id of the source terminal in {@link MaxFlowResult#visitArcFlows}. */
   public static final int SOURCE = -1;
