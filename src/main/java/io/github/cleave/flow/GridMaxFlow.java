@@ -28,6 +28,13 @@ import java.util.BitSet;
  * terminal, and growth re-hangs a tree neighbour under the node being grown when that brings it
  * closer to the terminal.
  *
+ * <p>Two steps of our own make a solve from scratch cheaper on segmentation grids, where most flow
+ * is local: before the trees are built, every path source → p → q → sink between two neighbours is
+ * saturated in one sweep (plain augmentations, so the flow stays valid); and only the roots on the
+ * front of their tree (with a neighbour that is not a root of the same terminal) start active,
+ * since a root surrounded by roots of its own tree cannot grow. A node that later gains a free or
+ * opposite neighbour is activated when that neighbour leaves its tree, as in the paper.
+ *
  * <p>Terminal arcs are kept as one signed residual per node ({@code cs - ct} with {@code min(cs,
  * ct)} pushed straight from source to sink when the capacities are set), as in the paper.
  *

@@ -65,7 +65,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
   private final int[] first;
   private final int[] arcHead;
   private final int[] sister;
-  private final int[] residual;
+  final int[] residual; // package-private for the tests that tamper with it
 
   // Search state.
   private final byte[] tree;

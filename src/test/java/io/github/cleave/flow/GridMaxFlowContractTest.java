@@ -100,6 +100,21 @@ class GridMaxFlowContractTest extends MaxFlowContractTest {
   }
 
   @Test
+  void certificateCatchesATamperedResidual() {
+    // The proof of optimality must not be a formality: change one residual after a solve and the
+    // check names the broken condition (common practice, no source).
+    GridMaxFlow grid =
+        build(RandomFlowProblems.grid(new java.util.SplittableRandom(3), Neighborhood.N8, 0));
+    grid.solve();
+    int a = 0;
+    while (grid.search.residual.get(a) == 0 && a < grid.search.residual.length() - 1) {
+      a++;
+    }
+    grid.search.residual.set(a, grid.search.residual.get(a) - 1);
+    assertThatThrownBy(grid::checkCertificate).isInstanceOf(CertificateViolation.class);
+  }
+
+  @Test
   void arcsThatAreNotGridNeighboursAreRejected() {
     GridMaxFlow grid = new GridMaxFlow(3, 3, 1, Neighborhood.N4, true);
     GridArcSink sink = new GridArcSink(grid, 10, 11);

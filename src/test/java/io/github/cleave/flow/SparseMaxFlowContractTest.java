@@ -60,6 +60,15 @@ class SparseMaxFlowContractTest extends MaxFlowContractTest {
   }
 
   @Test
+  void certificateCatchesATamperedResidual() {
+    // The proof of optimality must not be a formality (common practice, no source).
+    SparseMaxFlow solver = build(CLRS_FIG_26_1);
+    solver.solve();
+    solver.residual[0]++;
+    assertThatThrownBy(solver::checkCertificate).isInstanceOf(CertificateViolation.class);
+  }
+
+  @Test
   void twoNodesWithoutArcsCarryNoFlow() {
     SparseMaxFlow solver = new SparseGraphBuilder(2).setSource(0).setSink(1).build();
     MaxFlowResult result = solver.solve();
