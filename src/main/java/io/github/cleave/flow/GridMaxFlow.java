@@ -512,10 +512,21 @@ public final class GridMaxFlow implements MaxFlowSolver {
             if (c == 0 || !inside(x + nb.dx(k), y + nb.dy(k), z + nb.dz(k))) {
               continue;
             }
+            checkCapacity(c, "capacity of arc (" + node + ", " + k + ")");
             int back = caps[(node + nodeStep[k]) * directions + (k ^ 1)];
             long pair = (long) c + Math.max(back, 0);
-            if (c < 0 || pair > Integer.MAX_VALUE) {
-              setNeighborCapacity(node, k, c); // throws with the full message
+            if (pair > Integer.MAX_VALUE) {
+              throw new IllegalArgumentException(
+                  "arcs between node "
+                      + node
+                      + " and node "
+                      + (node + nodeStep[k])
+                      + " have capacities "
+                      + c
+                      + " and "
+                      + back
+                      + "; their sum must not exceed "
+                      + Integer.MAX_VALUE);
             }
             widestPair = Math.max(widestPair, pair);
           }

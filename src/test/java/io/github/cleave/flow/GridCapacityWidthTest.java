@@ -110,6 +110,20 @@ class GridCapacityWidthTest {
     assertThat(dynamic.capacityWidth()).isEqualTo(32);
   }
 
+  @org.junit.jupiter.api.Test
+  void bulkCapacitiesWhosePairsOverflowAreRejected() {
+    // An arc and its reverse must fit one int together (the residual of either can reach the sum).
+    for (boolean retain : new boolean[] {false, true}) {
+      GridMaxFlow grid = new GridMaxFlow(3, 2, 1, Neighborhood.N4, retain);
+      int[] caps = new int[6 * 4];
+      caps[0] = Integer.MAX_VALUE; // node 0, direction 0 (+x) ...
+      caps[1 * 4 + 1] = 5; // ... and its reverse, node 1, direction 1 (-x)
+      org.assertj.core.api.Assertions.assertThatThrownBy(() -> grid.setNeighborCapacities(caps))
+          .isInstanceOf(IllegalArgumentException.class)
+          .hasMessageContaining("their sum must not exceed");
+    }
+  }
+
   private static GridMaxFlow copyOf(GridMaxFlow s) {
     GridMaxFlow copy = new GridMaxFlow(s.width(), s.height(), s.depth(), s.neighborhood(), true);
     for (int p = 0; p < s.nodeCount(); p++) {
