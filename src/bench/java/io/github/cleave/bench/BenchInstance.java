@@ -8,7 +8,7 @@ import java.util.List;
 /**
  * One benchmark instance: a synthetic grid problem named {@code 2d-SIDE-nK-FLAVOUR} or {@code
  * 3d-SIDE-nK-FLAVOUR} (FLAVOUR {@code ordinary} or {@code boundary}), generated with seed 1 by
- * {@link SyntheticGridProblem#generate}. A suffix {@code -x64} multiplies every capacity by 64, so
+ * {@link SyntheticGridProblem#generate}. A suffix such as {@code -x1024} multiplies every capacity by that factor, so
  * that the same instance needs 32-bit residuals.
  */
 record BenchInstance(
@@ -29,8 +29,8 @@ record BenchInstance(
           "2d-2048-n8-boundary",
           "3d-256-n6-ordinary",
           "3d-256-n6-boundary",
-          "2d-1024-n8-ordinary-x64",
-          "3d-128-n6-ordinary-x64");
+          "2d-1024-n8-ordinary-x1024",
+          "3d-128-n6-ordinary-x1024");
 
   static final long SEED = 1;
 

@@ -43,17 +43,20 @@ import java.util.BitSet;
  * Neighbours and reverse arcs are computed, not stored: the neighbour in direction {@code k} is
  * {@code p + offset[k]} in a grid padded with dead border nodes ({@link GridLayout}), and the
  * reverse of arc {@code (p, k)} is {@code (p + offset[k], k ^ 1)}. Residuals live in one
- * interleaved {@code int} array ({@code residual[p * K + k]}), so all arcs of a node share a cache
- * line; the parent of a node is the one-byte direction towards it. Capacities are {@code int}, sums
- * {@code long}.
+ * interleaved array ({@code residual[p * K + k]}), so all arcs of a node share a cache line; the
+ * parent of a node is the one-byte direction towards it. Capacities are {@code int}, sums {@code
+ * long}.
  *
  * <h2>Complexity</h2>
  *
  * O(m n² |C|) in the worst case, with n nodes, m arcs and |C| the cost of the minimum cut, since
  * the number of augmentations is bounded by the flow value; in practice close to linear on
- * segmentation grids dominated by terminal costs. Memory per node: 4K + 18 bytes for K neighbours,
- * plus 4K + 8 bytes when capacities are retained. Long augmenting paths (strong boundary weights,
- * weak terminals) are this method's weak spot; push-relabel solvers are then sometimes faster.
+ * segmentation grids dominated by terminal costs. Memory per node for K neighbours: 2K + 18 bytes
+ * while every neighbour capacity is at most 32767 (residuals are then stored 16 bits wide, see
+ * {@link #capacityWidth()}), 4K + 18 bytes otherwise, plus 4K + 8 bytes when capacities are
+ * retained; the dead padding adds a few percent on small grids. Long augmenting paths (strong
+ * boundary weights, weak terminals) are this method's weak spot; push-relabel solvers are then
+ * sometimes faster.
  *
  * <h2>Capacities, retained or not</h2>
  *
@@ -294,7 +297,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
               + Integer.MAX_VALUE);
     }
     if (capacity == null) {
-      fitResiduals((long) cap + reverse);
+      fitResiduals(cap);
     }
     int old = stored(a);
     store(a, cap);
@@ -315,7 +318,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
     int q = p + offset[k];
     int a = p * directions + k;
     int b = q * directions + (k ^ 1);
-    fitResiduals((long) capacity[a] + capacity[b]);
+    fitResiduals(Math.max(capacity[a], capacity[b]));
     Residuals residual = search.residual;
     long r = residual.get(a) + delta;
     if (r >= 0) {
@@ -419,7 +422,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
             setNeighborCapacity(node, k, c); // throws with the full message
           }
           if (capacity == null) {
-            fitResiduals(c + back);
+            fitResiduals(c);
           }
           store(p * directions + k, c);
         }
@@ -459,12 +462,11 @@ public final class GridMaxFlow implements MaxFlowSolver {
     for (int i = 0; i < caps.length; i++) {
       bits |= caps[i];
     }
-    long widestPair = 2L * bits; // an upper bound; exact below when it matters
-    if (bits < 0 || widestPair > Residuals.NARROW_MAX) {
-      widestPair = checkPairs(caps, nodeStep);
+    if (bits < 0 || 2L * bits > Integer.MAX_VALUE) {
+      checkPairs(caps, nodeStep); // a negative value or an arc pair beyond the int range
     }
-    if (capacity == null) {
-      fitResiduals(widestPair);
+    if (capacity == null && bits > Residuals.NARROW_CAPACITY) {
+      fitResiduals(largestInside(caps)); // the entries of arcs leaving the grid do not count
     }
     int node = 0;
     for (int z = 0; z < g.depth; z++) {
@@ -495,13 +497,12 @@ public final class GridMaxFlow implements MaxFlowSolver {
   }
 
   /**
-   * Checks every arc of an interleaved capacity array against its reverse; returns the largest sum
-   * of an arc pair.
+   * Checks every arc of an interleaved capacity array and its reverse: non-negative, with a sum
+   * within the int range.
    */
-  private long checkPairs(int[] caps, int[] nodeStep) {
+  private void checkPairs(int[] caps, int[] nodeStep) {
     GridLayout g = layout;
     Neighborhood nb = g.neighborhood;
-    long widestPair = 0;
     int node = 0;
     for (int z = 0; z < g.depth; z++) {
       for (int y = 0; y < g.height; y++) {
@@ -528,12 +529,41 @@ public final class GridMaxFlow implements MaxFlowSolver {
                       + "; their sum must not exceed "
                       + Integer.MAX_VALUE);
             }
-            widestPair = Math.max(widestPair, pair);
           }
         }
       }
     }
-    return widestPair;
+  }
+
+  /** The largest entry of an interleaved capacity array among arcs that stay inside the grid. */
+  private int largestInside(int[] caps) {
+    GridLayout g = layout;
+    Neighborhood nb = g.neighborhood;
+    int largest = 0;
+    int node = 0;
+    for (int z = 0; z < g.depth; z++) {
+      for (int y = 0; y < g.height; y++) {
+        boolean borderRow =
+            y < g.reach || y >= g.height - g.reach || z < g.reachZ || z >= g.depth - g.reachZ;
+        for (int x = 0; x < g.width; x++, node++) {
+          if (!borderRow && x >= g.reach && x < g.width - g.reach) {
+            int end = (node + g.width - g.reach - x) * directions; // the row's interior at once
+            for (int i = node * directions; i < end; i++) {
+              largest = Math.max(largest, caps[i]);
+            }
+            node += g.width - g.reach - x - 1;
+            x = g.width - g.reach - 1;
+            continue;
+          }
+          for (int k = 0; k < directions; k++) {
+            if (inside(x + nb.dx(k), y + nb.dy(k), z + nb.dz(k))) {
+              largest = Math.max(largest, caps[node * directions + k]);
+            }
+          }
+        }
+      }
+    }
+    return largest;
   }
 
   private boolean inside(int x, int y, int z) {
@@ -553,9 +583,9 @@ public final class GridMaxFlow implements MaxFlowSolver {
     }
   }
 
-  /** Widens the residuals to 32 bits if an arc pair with capacities summing to pair needs it. */
-  private void fitResiduals(long pair) {
-    if (pair > search.residual.maxValue()) {
+  /** Widens the residuals to 32 bits unless {@code largest}, a capacity, fits the 16-bit form. */
+  private void fitResiduals(int largest) {
+    if (largest > Residuals.NARROW_CAPACITY) {
       search.widenResiduals();
     }
   }
@@ -613,7 +643,10 @@ public final class GridMaxFlow implements MaxFlowSolver {
     return search.stateBytes() + retained;
   }
 
-  /** Width in bits of the stored residual capacities. */
+  /**
+   * Width in bits of the stored residuals: 16 while every neighbour capacity is at most 32767 (with
+   * retained capacities, decided at each solve), 32 from the first capacity beyond that.
+   */
   public int capacityWidth() {
     return search.residualWidth();
   }
@@ -694,7 +727,11 @@ public final class GridMaxFlow implements MaxFlowSolver {
 
   /** Residuals from the retained capacities, zero flow. */
   private void loadCapacities() {
-    fitResiduals(widestPair());
+    int bits = 0; // >= every capacity, all of which are >= 0
+    for (int i = 0; i < capacity.length; i++) {
+      bits |= capacity[i];
+    }
+    fitResiduals(bits);
     int[] terminal = search.terminal;
     search.residual.copyFrom(capacity, 0, 0, capacity.length);
     shift = null;
@@ -706,30 +743,6 @@ public final class GridMaxFlow implements MaxFlowSolver {
       f += Math.min(cs, ct);
     }
     search.flow = f;
-  }
-
-  /** Largest sum of the capacities of an arc and its reverse (an upper bound when cheap). */
-  private long widestPair() {
-    int bits = 0; // >= every capacity, all of which are >= 0
-    for (int i = 0; i < capacity.length; i++) {
-      bits |= capacity[i];
-    }
-    if (2L * bits <= Residuals.NARROW_MAX) {
-      return 2L * bits;
-    }
-    long pair = 0;
-    for (int p = 0; p < layout.paddedCount; p++) {
-      for (int k = 0; k < directions; k++) {
-        int a = p * directions + k;
-        if (capacity[a] != 0) {
-          int q = p + offset[k];
-          if (q >= 0 && q < layout.paddedCount) {
-            pair = Math.max(pair, (long) capacity[a] + capacity[q * directions + (k ^ 1)]);
-          }
-        }
-      }
-    }
-    return pair;
   }
 
   private void checkNotSolved() {

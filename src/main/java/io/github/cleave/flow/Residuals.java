@@ -3,13 +3,16 @@ package io.github.cleave.flow;
 /**
  * The residual capacities of a grid's neighbour arcs, {@code residual[p * K + k]}, stored 16 or 32
  * bits wide. The 16-bit form holds 0..65535 and halves the memory and cache traffic of the solver's
- * largest array; it is usable when every arc and its reverse have capacities summing to at most
- * 65535, since pushing flow only moves residual between the two. Callers keep values within {@link
- * #maxValue()} and {@link GridSearch} widens to 32 bits when a capacity change would leave it.
+ * largest array; the solver uses it while every neighbour capacity is at most {@link
+ * #NARROW_CAPACITY}, so that an arc and its reverse sum to at most 65534 (pushing flow only moves
+ * residual between the two), and widens to 32 bits when a capacity is set beyond that.
  */
 abstract sealed class Residuals permits Residuals.Narrow, Residuals.Wide {
   /** Largest value of the 16-bit form. */
   static final int NARROW_MAX = 0xFFFF;
+
+  /** Largest capacity the solver stores in 16-bit residuals: half of {@link #NARROW_MAX}. */
+  static final int NARROW_CAPACITY = NARROW_MAX / 2;
 
   static Residuals create(int length, boolean narrow) {
     return narrow ? new Narrow(new char[length]) : new Wide(new int[length]);
