@@ -102,7 +102,7 @@ class GridCapacityWidthTest {
       }
       dynamic.setTerminalCapacities(p, random.nextInt(100_000), random.nextInt(100_000));
       MaxFlowResult resolved = dynamic.resolve();
-      GridMaxFlow scratch = copyOf(dynamic);
+      GridMaxFlow scratch = GridDynamicResolveTest.copyOf(dynamic);
       MaxFlowResult fresh = scratch.solve();
       assertThat(resolved.flowValue()).as("change %d", change).isEqualTo(fresh.flowValue());
       assertThat(resolved.sourceSide()).isEqualTo(fresh.sourceSide());
@@ -122,19 +122,6 @@ class GridCapacityWidthTest {
           .isInstanceOf(IllegalArgumentException.class)
           .hasMessageContaining("their sum must not exceed");
     }
-  }
-
-  private static GridMaxFlow copyOf(GridMaxFlow s) {
-    GridMaxFlow copy = new GridMaxFlow(s.width(), s.height(), s.depth(), s.neighborhood(), true);
-    for (int p = 0; p < s.nodeCount(); p++) {
-      copy.setTerminalCapacities(p, s.sourceCapacity(p), s.sinkCapacity(p));
-      for (int k = 0; k < s.neighborhood().size(); k++) {
-        if (s.neighbor(p, k) >= 0) {
-          copy.setNeighborCapacity(p, k, s.neighborCapacity(p, k));
-        }
-      }
-    }
-    return copy;
   }
 
   private static void addEdge(

@@ -111,7 +111,8 @@ class GridDynamicResolveTest {
     return grid;
   }
 
-  private static GridMaxFlow copyOf(GridMaxFlow grid) {
+  /** A new solver with the same capacities, retained, never solved. */
+  static GridMaxFlow copyOf(GridMaxFlow grid) {
     GridMaxFlow copy =
         new GridMaxFlow(grid.width(), grid.height(), grid.depth(), grid.neighborhood(), true);
     for (int p = 0; p < grid.nodeCount(); p++) {
