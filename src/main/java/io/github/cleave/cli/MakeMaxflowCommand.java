@@ -21,6 +21,7 @@ import picocli.CommandLine.Spec;
  */
 @Command(
     name = "make-maxflow",
+    mixinStandardHelpOptions = true,
     sortOptions = false,
     description = {
       "Writes a generated grid segmentation problem (bright blobs on a noisy illumination ramp,"

@@ -27,6 +27,7 @@ import picocli.CommandLine.Spec;
  */
 @Command(
     name = "maxflow",
+    mixinStandardHelpOptions = true,
     sortOptions = false,
     description = {
       "Solves a max-flow problem in the DIMACS format (plain or gzip-compressed) and prints the"

@@ -124,6 +124,15 @@ class MaxflowCommandTest {
   }
 
   @Test
+  void everyCommandExplainsItselfWithHelp() {
+    for (String command : new String[] {"maxflow", "make-maxflow"}) {
+      Run r = run(command, "--help");
+      assertThat(r.exit()).as(command).isZero();
+      assertThat(r.out()).as(command).contains("Usage: cleave " + command, "--grid");
+    }
+  }
+
+  @Test
   void checkAndRepeatReportTheirLines() {
     Run r = run("maxflow", "--check", "--repeat", "3", "--grid", "128,128", SAMPLE.toString());
     assertThat(r.exit()).isZero();
