@@ -7,14 +7,39 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
+import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ThreadLocalRandom;
 
 /**
  * Writes files so that no partial file is ever visible under the final name: the content goes to a
  * hidden temporary sibling ({@code .NAME.RANDOM.part}), which is renamed into place only after it
- * was written and closed completely. On failure the temporary file is deleted.
+ * was written and closed completely. On failure the temporary file is deleted; when the JVM is
+ * stopped while a file is being written (Ctrl-C, SIGTERM), a shutdown hook deletes the temporary
+ * files still open, so no partial file remains under any name. (A SIGKILL cannot be intercepted:
+ * then a hidden {@code .part} file may remain, never a partial file under the final name.)
+ *
+ * <p>Thread-safe.
  */
 public final class AtomicFiles {
+  private static final Set<Path> IN_PROGRESS = ConcurrentHashMap.newKeySet();
+
+  static {
+    Runtime.getRuntime()
+        .addShutdownHook(
+            new Thread(
+                () -> {
+                  for (Path p : IN_PROGRESS) {
+                    try {
+                      Files.deleteIfExists(p);
+                    } catch (IOException e) {
+                      // best effort while the JVM stops
+                    }
+                  }
+                },
+                "cleave-remove-partial-files"));
+  }
+
   private AtomicFiles() {}
 
   /** Writes the content of a file to a stream. */
@@ -38,6 +63,7 @@ public final class AtomicFiles {
                 + "."
                 + Long.toHexString(ThreadLocalRandom.current().nextLong())
                 + ".part");
+    IN_PROGRESS.add(temporary);
     try {
       try (OutputStream out =
           Files.newOutputStream(
@@ -55,6 +81,7 @@ public final class AtomicFiles {
       }
     } finally {
       Files.deleteIfExists(temporary);
+      IN_PROGRESS.remove(temporary);
     }
   }
 }

@@ -1,0 +1,133 @@
+package io.github.cleave.energy;
+
+import io.github.cleave.flow.GridMaxFlow;
+import io.github.cleave.flow.MaxFlowResult;
+import io.github.cleave.flow.Neighborhood;
+import io.github.cleave.image.Raster;
+import io.github.cleave.image.SeedLabels;
+import java.util.Locale;
+
+/**
+ * The two-class segmentation energy of DESIGN.md as a grid max-flow problem, ready to solve.
+ *
+ * <h2>Graph</h2>
+ *
+ * One node per voxel, in the raster's order; the source side of the minimum cut is the foreground.
+ * Terminal arcs carry the regional term: {@code source → p} the cost of calling {@code p}
+ * background ({@code D_p(bg)}), {@code p → sink} the cost of calling it foreground ({@code
+ * D_p(fg)}); a cut pays the arc of the class it does not choose. A foreground seed gets {@code
+ * source → p = K} and {@code p → sink = 0}, a background seed the reverse, with {@code K = 1 +
+ * max_p Σ_q B_pq}: moving a seed across the cut would always cost more than any boundary it could
+ * save, so seeds are never cut off (Boykov and Jolly, ICCV 2001, doi:10.1109/ICCV.2001.937505).
+ * Neighbour arcs in both directions carry {@code B_pq = λ · w_k · exp(−‖I_p − I_q‖² / 2σ²)} with
+ * the Cauchy–Crofton weight {@code w_k} (which already contains {@code 1/|e_k|}; not divided by the
+ * distance again). All values are converted to integers by {@link CapacityScale}, so the flow value
+ * equals the minimum energy in capacity units exactly, seeds contributing nothing.
+ *
+ * <h2>Cost</h2>
+ *
+ * Building is O(n · K) for n voxels and K neighbours, with {@code K/2} exponentials per voxel (each
+ * unordered pair once); the solver's memory is that of {@link GridMaxFlow} plus two temporary int
+ * arrays of n entries during the build. Not thread-safe.
+ */
+public final class CutProblem {
+  private final GridMaxFlow solver;
+  private final int hardCapacity;
+
+  private CutProblem(GridMaxFlow solver, int hardCapacity) {
+    this.solver = solver;
+    this.hardCapacity = hardCapacity;
+  }
+
+  /**
+   * Builds the graph.
+   *
+   * @param features the values the boundary term compares (the driving channels)
+   * @param foregroundCost {@code D_p(fg)} in nats per voxel, finite and ≥ 0
+   * @param backgroundCost {@code D_p(bg)} in nats per voxel, finite and ≥ 0
+   * @param seeds labels 1 (foreground) and 2 (background); others are ignored here
+   * @param retainCapacities whether the solver keeps its capacities (certificate, re-solves)
+   * @throws IllegalArgumentException if sizes differ or the neighbourhood does not fit the image
+   */
+  public static CutProblem build(
+      Raster features,
+      float[] foregroundCost,
+      float[] backgroundCost,
+      SeedLabels seeds,
+      EnergyParameters parameters,
+      boolean retainCapacities) {
+    int n = features.size();
+    if (foregroundCost.length != n || backgroundCost.length != n || seeds.size() != n) {
+      throw new IllegalArgumentException(
+          String.format(
+              Locale.ROOT,
+              "energy: %d voxels, %d and %d regional costs, %d seed labels",
+              n,
+              foregroundCost.length,
+              backgroundCost.length,
+              seeds.size()));
+    }
+    Neighborhood nb = parameters.neighborhood();
+    if (nb.isThreeDimensional() != (features.depth() > 1)) {
+      throw new IllegalArgumentException(
+          "neighborhood "
+              + nb.size()
+              + " does not fit an image of "
+              + features.depth()
+              + " plane(s): use 4, 8 or 16 for a plane, 6, 18 or 26 for a stack");
+    }
+    GridMaxFlow solver =
+        new GridMaxFlow(
+            features.width(), features.height(), features.depth(), nb, retainCapacities);
+    int[] neighbourSum = new int[n];
+    BoundaryArcs.set(solver, features, parameters, neighbourSum);
+    int maxSum = 0;
+    for (int s : neighbourSum) {
+      maxSum = Math.max(maxSum, s);
+    }
+    int hard = maxSum + 1;
+    int[] source = neighbourSum; // reused: the sums are no longer needed
+    int[] sink = new int[n];
+    byte[] labels = seeds.labels();
+    for (int p = 0; p < n; p++) {
+      int label = labels[p];
+      if (label == SeedLabels.FOREGROUND) {
+        source[p] = hard;
+        sink[p] = 0;
+      } else if (label == SeedLabels.BACKGROUND) {
+        source[p] = 0;
+        sink[p] = hard;
+      } else {
+        source[p] = CapacityScale.toCapacity(backgroundCost[p]);
+        sink[p] = CapacityScale.toCapacity(foregroundCost[p]);
+      }
+    }
+    solver.setTerminalCapacities(source, sink);
+    return new CutProblem(solver, hard);
+  }
+
+  /** Solves from scratch (or continues after capacity changes, see {@link GridMaxFlow}). */
+  public MaxFlowResult solve() {
+    return solver.solve();
+  }
+
+  /** The capacity {@code K} that makes a seed a hard constraint. */
+  public int hardCapacity() {
+    return hardCapacity;
+  }
+
+  /** The underlying solver, for dynamic re-solves and diagnostics. */
+  public GridMaxFlow solver() {
+    return solver;
+  }
+
+  /** The foreground mask of a cut: 255 on the source side, 0 elsewhere (ImageJ's binary). */
+  public static byte[] mask(MaxFlowResult result) {
+    byte[] mask = new byte[result.nodeCount()];
+    var side = result.sourceSide();
+    for (int p = side.nextSetBit(0); p >= 0; p = side.nextSetBit(p + 1)) {
+      mask[p] = (byte) 255;
+    }
+    return mask;
+  }
+}
