@@ -1,0 +1,207 @@
+package io.github.cleave.io;
+
+import ij.ImagePlus;
+import ij.io.FileInfo;
+import ij.io.Opener;
+import io.github.cleave.image.BadInputException;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Iterator;
+import java.util.Locale;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import javax.imageio.ImageIO;
+import javax.imageio.ImageReader;
+import javax.imageio.stream.ImageInputStream;
+
+/**
+ * Opens an image file with ImageJ's own readers, headless and without dialogs, after checking
+ * everything that can be checked from the file's header: that it exists and is not empty, that a
+ * TIFF's header can be decoded and its pixel data lies within the file (a truncated file is refused
+ * instead of being read with zeros), that it is not a time-lapse, and that it fits in the heap
+ * ({@link MemoryEstimate}). Accepted: TIFF ({@code .tif}, {@code .tiff}), PNG, and a TIFF inside a
+ * {@code .zip} (for those only the checks after reading apply). Every failure is a {@link
+ * BadInputException} naming the file.
+ */
+final class ImageOpening {
+  private static final Pattern FRAMES = Pattern.compile("(?m)^frames=(\\d+)");
+  private static final Pattern CHANNELS = Pattern.compile("(?m)^channels=(\\d+)");
+
+  private ImageOpening() {}
+
+  /** Opens {@code file}; {@code role} ("image", "seed image") starts the messages. */
+  static ImagePlus open(Path file, String role) {
+    String name = file.toString();
+    if (!Files.exists(file)) {
+      throw new BadInputException(role + " file " + name + " does not exist");
+    }
+    if (Files.isDirectory(file)) {
+      throw new BadInputException(role + " " + name + " is a folder; expected a TIFF or PNG file");
+    }
+    long length;
+    try {
+      length = Files.size(file);
+    } catch (IOException e) {
+      throw new BadInputException(role + " file " + name + " cannot be read: " + e, e);
+    }
+    if (length == 0) {
+      throw new BadInputException(
+          role + " file " + name + " is empty (0 bytes); expected a TIFF or PNG image");
+    }
+    String lower = file.getFileName().toString().toLowerCase(Locale.ROOT);
+    if (lower.endsWith(".tif") || lower.endsWith(".tiff")) {
+      checkTiffHeader(file, role, length);
+    } else if (lower.endsWith(".png")) {
+      checkPngHeader(file, role);
+    } else if (!lower.endsWith(".zip")) {
+      throw new BadInputException(
+          role
+              + " file "
+              + name
+              + " has an unsupported type; Cleave reads TIFF (.tif, .tiff), PNG (.png) and a TIFF"
+              + " zipped by ImageJ (.zip)");
+    }
+    ImagePlus imp;
+    try {
+      Opener opener = new Opener();
+      opener.setSilentMode(true);
+      imp = opener.openImage(file.toAbsolutePath().toString());
+    } catch (OutOfMemoryError e) {
+      throw new BadInputException(
+          role + " " + name + " is too large for the heap; start Java with a larger -Xmx", e);
+    } catch (RuntimeException | LinkageError e) {
+      throw new BadInputException(
+          role + " file " + name + " is not a readable image (corrupt or unsupported): " + e, e);
+    }
+    if (imp == null || imp.getStackSize() < 1 || imp.getProcessor() == null) {
+      throw new BadInputException(
+          role
+              + " file "
+              + name
+              + " is not a readable image (corrupt, truncated or not a TIFF/PNG file)");
+    }
+    checkTimePoints(name, role, imp.getNFrames());
+    return imp;
+  }
+
+  static void checkTimePoints(String name, String role, int frames) {
+    if (frames > 1) {
+      throw new BadInputException(
+          role
+              + " "
+              + name
+              + " has "
+              + frames
+              + " time points; time-lapses are not supported yet: segment one time point at a"
+              + " time, saving each as its own file");
+    }
+  }
+
+  private static void checkTiffHeader(Path file, String role, long length) {
+    String name = file.toString();
+    FileInfo[] infos;
+    try {
+      infos = Opener.getTiffFileInfo(file.toAbsolutePath().toString());
+    } catch (RuntimeException | LinkageError e) {
+      infos = null;
+    }
+    if (infos == null || infos.length == 0 || infos[0].width < 1 || infos[0].height < 1) {
+      throw new BadInputException(
+          role + " file " + name + " is not a readable TIFF (corrupt, or not a TIFF file)");
+    }
+    long planes = 0;
+    for (FileInfo fi : infos) {
+      long end = dataEnd(fi);
+      if (end > length) {
+        throw new BadInputException(
+            String.format(
+                Locale.ROOT,
+                "%s file %s is truncated: its pixel data ends at byte %d but the file has only %d"
+                    + " bytes; save or copy it again",
+                role,
+                name,
+                end,
+                length));
+      }
+      planes += Math.max(1, fi.nImages);
+    }
+    FileInfo first = infos[0];
+    String description = first.description == null ? "" : first.description;
+    checkTimePoints(name, role, intIn(FRAMES, description, 1));
+    int channels = intIn(CHANNELS, description, 1);
+    int samples = first.samplesPerPixel >= 3 ? 3 : 1;
+    long needed =
+        MemoryEstimate.bytesNeeded(
+            first.width,
+            first.height,
+            planes,
+            channels,
+            Math.max(1, first.getBytesPerPixel()),
+            samples);
+    MemoryEstimate.check(
+        name,
+        first.width + " x " + first.height + " x " + planes + " planes",
+        needed,
+        MemoryEstimate.available());
+  }
+
+  /** End of the last pixel byte an uncompressed or stripped TIFF image entry refers to. */
+  private static long dataEnd(FileInfo fi) {
+    long end = 0;
+    if (fi.stripOffsets != null && fi.stripLengths != null) {
+      for (int i = 0; i < Math.min(fi.stripOffsets.length, fi.stripLengths.length); i++) {
+        end =
+            Math.max(end, (fi.stripOffsets[i] & 0xffffffffL) + (fi.stripLengths[i] & 0xffffffffL));
+      }
+    }
+    if (fi.compression <= FileInfo.COMPRESSION_NONE && fi.getBytesPerPixel() > 0) {
+      long images = Math.max(1, fi.nImages);
+      long gap = Math.max(fi.longGap, fi.gapBetweenImages);
+      long imageBytes = (long) fi.width * fi.height * fi.getBytesPerPixel();
+      end = Math.max(end, fi.getOffset() + images * imageBytes + (images - 1) * gap);
+    }
+    return end;
+  }
+
+  private static void checkPngHeader(Path file, String role) {
+    String name = file.toString();
+    int width;
+    int height;
+    try (ImageInputStream in = ImageIO.createImageInputStream(file.toFile())) {
+      Iterator<ImageReader> readers = in == null ? null : ImageIO.getImageReaders(in);
+      if (readers == null || !readers.hasNext()) {
+        throw new IOException("no PNG signature");
+      }
+      ImageReader reader = readers.next();
+      try {
+        reader.setInput(in);
+        width = reader.getWidth(0);
+        height = reader.getHeight(0);
+      } finally {
+        reader.dispose();
+      }
+    } catch (IOException | RuntimeException e) {
+      throw new BadInputException(
+          role + " file " + name + " is not a readable PNG (corrupt, or not a PNG file)", e);
+    }
+    // Worst case: ImageJ keeps colour PNGs as 4-byte RGB pixels.
+    MemoryEstimate.check(
+        name,
+        width + " x " + height,
+        MemoryEstimate.bytesNeeded(width, height, 1, 1, 4, 3),
+        MemoryEstimate.available());
+  }
+
+  private static int intIn(Pattern pattern, String text, int fallback) {
+    Matcher m = pattern.matcher(text);
+    if (!m.find()) {
+      return fallback;
+    }
+    try {
+      return Integer.parseInt(m.group(1));
+    } catch (NumberFormatException e) {
+      return fallback;
+    }
+  }
+}
