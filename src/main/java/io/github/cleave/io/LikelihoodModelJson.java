@@ -233,7 +233,8 @@ public final class LikelihoodModelJson {
   private static int count(JsonElement e, String path) {
     double v = number(e, path);
     if (v != Math.rint(v) || v < 1 || v > 1 << 20) {
-      throw damaged(path, "is " + new JsonPrimitive(v) + "; a whole number 1.." + (1 << 20));
+      throw damaged(
+          path, "is " + new JsonPrimitive(v) + "; expected a whole number 1.." + (1 << 20));
     }
     return (int) v;
   }
