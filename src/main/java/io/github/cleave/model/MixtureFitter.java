@@ -21,8 +21,8 @@ import java.util.SplittableRandom;
 final class MixtureFitter {
   static final long RANDOM_SEED = 0x5EED_C1EAL;
   static final int LLOYD_ITERATIONS = 10;
-  static final int MAX_EM_ITERATIONS = 100;
-  static final double TOLERANCE = 1e-7;
+  static final int MAX_EM_ITERATIONS = 50;
+  static final double TOLERANCE = 1e-4;
   static final double MIN_COMPONENT_MASS = 1e-3;
 
   private MixtureFitter() {}
