@@ -5,9 +5,10 @@ public enum ObjectSplit {
   /** No splitting: one object per connected component of the mask. */
   NONE,
   /**
-   * Split at the necks of the distance map: watershed of the Euclidean distance to the background
-   * from its maxima (see {@link DistanceWatershed}); one object per distance peak that stands out
-   * by more than half a pixel or voxel.
+   * Split at the necks of the distance map: watershed of the Euclidean distance to the background,
+   * flooded from its maxima (Vincent and Soille, IEEE TPAMI 13(6), 1991); one object per distance
+   * peak that stands out by more than half a pixel (single plane: ImageJ's own EDM watershed) or
+   * half the finest voxel side (stack: our calibrated 3D version). See {@link ObjectSplitting}.
    */
   DISTANCE_WATERSHED,
   /**

@@ -9,7 +9,15 @@ import io.github.cleave.image.VoxelSize;
  *
  * <ul>
  *   <li>{@link ObjectSplit#NONE}: {@link ConnectedComponents}.
- *   <li>{@link ObjectSplit#DISTANCE_WATERSHED}: {@link DistanceWatershed}.
+ *   <li>{@link ObjectSplit#DISTANCE_WATERSHED}: watershed of the Euclidean distance map (L. Vincent
+ *       and P. Soille, "Watersheds in digital spaces", IEEE TPAMI 13(6):583–598, 1991). Single
+ *       plane: ImageJ's {@code EDM.toWatershed} (distance in pixels, maxima tolerance 0.5,
+ *       independent of the black-background preference); its one-pixel dividing lines are given
+ *       back to the nearest neighbouring object, so no pixel is lost. Stack: exact calibrated
+ *       distance (Felzenszwalb and Huttenlocher, Theory of Computing 8, 2012), markers = maxima of
+ *       the h-maxima transform with h = half the finest voxel side, then a priority-queue flood in
+ *       decreasing distance (FIFO among equal distances) in which each voxel joins the first
+ *       labelled neighbour that reaches it, so dividing surfaces go to one side. O(N log N).
  *   <li>{@link ObjectSplit#PER_STROKE}: the stroke voxels inside the mask are grouped into
  *       connected pieces (same connectivity), each piece seeds one object, and every mask voxel is
  *       given to the nearest piece in its own mask component by a multi-source breadth-first search
