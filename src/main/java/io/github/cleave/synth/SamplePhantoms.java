@@ -22,25 +22,30 @@ import java.util.SplittableRandom;
  * on each default phantom ({@code SamplePhantomsTest} holds the numbers).
  *
  * <ol>
- *   <li>{@link #nuclei}: 16-bit fluorescence. Emission = illumination × (25 + 150 · g · (1 + 0.25 ·
- *       texture)) photons in nuclei (g uniform in [0.5, 1.3], texture a smooth random field, σ =
- *       1.5 px), 25 photons elsewhere; illumination a ramp from 0.2 to 1 at a random angle times (1
- *       − 0.3 r²); Gaussian PSF σ = 1.3 px; camera: Poisson counts × 2 ADU + 100 ADU offset + read
- *       noise σ = 3 ADU. Pixel 0.325 µm.
+ *   <li>{@link #nuclei}: 16-bit fluorescence. Emission = illumination × (40 + 300 · g · (1 + 0.25 ·
+ *       texture)) photons in nuclei, 40 elsewhere (g uniform in [0.35, 1.3] per nucleus, texture a
+ *       smooth random field, σ = 1.5 px), plus out-of-focus haze: a Gaussian bump of 60 photons, σ
+ *       = 0.2 of the image side, at a random place; illumination a ramp from 0.15 to 1 at a random
+ *       angle times (1 − 0.3 r²), r the distance from the centre over the half diagonal; Gaussian
+ *       PSF σ = 1.3 px; camera: Poisson counts × 2 ADU + 100 ADU offset + Gaussian read noise σ = 3
+ *       ADU. Pixel 0.325 µm.
  *   <li>{@link #stained}: RGB brightfield-like section by the Beer–Lambert law: transmitted light =
  *       255 · illumination · exp(−(c_n · a_n + c_p · a_p)) per channel, with an invented purple
- *       stain (absorbance a_n = 0.60, 0.75, 0.25 for R, G, B; c_n = 1.3 · g · (1 + 0.2 texture) in
- *       nuclei) and an invented pink stain (a_p = 0.08, 0.85, 0.25; c_p = 0.2 + 0.45 · fibres
- *       everywhere, fibres a wavy streaked texture); illumination a ramp from 0.45 to 1 times (1 −
- *       0.3 r²); blur σ = 1 px; Gaussian noise σ = 3 grey levels; rounded to 0..255. Pixel 0.25 µm.
- *   <li>{@link #twoChannel}: channel 1 as {@link #nuclei}; channel 2 a second marker in a ring
- *       around each nucleus (normalised radius 1.1 to 1.7, outside all nuclei), its level per
- *       nucleus 0 (a quarter of the nuclei) or uniform in [0.2, 1] · 120 photons, same
+ *       stain (absorbance a_n = 0.60, 0.75, 0.25 for R, G, B; c_n = 1.6 · g · (1 + 0.2 texture) in
+ *       nuclei, g in [0.8, 1.25]) and an invented pink stain (a_p = 0.08, 0.85, 0.25; c_p = 0.2 +
+ *       0.45 · fibres everywhere, fibres a wavy streaked texture); illumination a ramp from 0.6 to
+ *       1 times (1 − 0.25 r²); stains blurred with σ = 1 px; Gaussian noise σ = 3 grey levels;
+ *       rounded to 0..255. Pixel 0.25 µm.
+ *   <li>{@link #twoChannel}: channel 1 as {@link #nuclei} but with a ramp from 0.12, fall-off 0.35
+ *       and haze of 90 photons (σ = 0.25 of the side); channel 2 a second marker in a ring around
+ *       each nucleus (normalised radius 1.1 to 1.7, outside all nuclei), its level per nucleus 0
+ *       (probability 1/4) or uniform in [0.2, 1] · 120 photons, on 15 photons of background, same
  *       illumination, PSF and camera.
  *   <li>{@link #stack}: 16-bit 3D, voxel 0.2 × 0.2 × 0.6 µm; ellipsoids with z semi-axis 0.4 of the
- *       mean xy semi-axis in voxels (flattened nuclei); illumination ramp 0.25 to 1 times a
- *       fall-off 0.6 at the last plane (depth attenuation); PSF σ = 1.0, 1.0, 1.5 voxels (about
- *       0.2, 0.2, 0.9 µm: stronger in z); same camera.
+ *       mean xy semi-axis in voxels (flattened nuclei); illumination a ramp from 0.2 to 1 times (1
+ *       − 0.25 r²) times a depth attenuation falling linearly to 0.5 at the last plane; haze of 18
+ *       photons (σ = 0.25 of the side, every plane); PSF σ = 1.0, 1.0, 1.5 voxels (about 0.2, 0.2,
+ *       0.9 µm: stronger in z); same emission and camera as {@link #nuclei}.
  * </ol>
  *
  * <p>Seeds come from {@link StrokeGenerator#strokes} with the seed {@code seed + 1}. Stateless,

@@ -8,7 +8,6 @@ import ij.io.FileSaver;
 import ij.measure.Calibration;
 import ij.process.ByteProcessor;
 import ij.process.ColorProcessor;
-import ij.process.ImageProcessor;
 import ij.process.ShortProcessor;
 import io.github.cleave.image.PixelKind;
 import io.github.cleave.image.Raster;
@@ -150,10 +149,5 @@ public final class SampleWriter {
 
   private static int clip(float v, int max) {
     return (int) Math.min(max, Math.max(0, Math.rint(v)));
-  }
-
-  /** Unused here; keeps the processor type visible to readers of the stack layout. */
-  static ImageProcessor plane(ImagePlus imp, int channel, int z) {
-    return imp.getStack().getProcessor(imp.getStackIndex(channel + 1, z + 1, 1));
   }
 }
