@@ -41,9 +41,7 @@ class CauchyCroftonDiskTest {
         double cy = 70 + random.nextDouble();
         double ratio = diskCutCost(nb, 140, cx, cy, r) / (2 * Math.PI * r);
         double slack = nb == Neighborhood.N16 ? 0.01 : 0;
-        assertThat(ratio)
-            .as("%s, r = %.2f", nb, r)
-            .isBetween(bounds[0] - slack, bounds[1] + slack);
+        assertThat(ratio).as("%s, r = %.2f", nb, r).isBetween(bounds[0] - slack, bounds[1] + slack);
       }
     }
   }

@@ -1,0 +1,115 @@
+package io.github.cleave.segment;
+
+import io.github.cleave.energy.EnergyParameters;
+import io.github.cleave.image.Raster;
+import io.github.cleave.image.SeedLabels;
+import io.github.cleave.model.LikelihoodModel;
+import io.github.cleave.model.ModelKind;
+import io.github.cleave.model.ModelLearner;
+import java.util.Arrays;
+
+/**
+ * The cut with iterated re-estimation of the likelihoods: cut with the given model, learn the
+ * models again from the classes the cut assigned (seed voxels keep their own label), and cut again,
+ * for a given number of rounds or until the mask no longer changes (Rother, Kolmogorov and Blake,
+ * "GrabCut", ACM Trans. Graphics 23(3), 2004, doi:10.1145/1015706.1015720, iterative estimation). A
+ * few short strokes show only part of the range of their class, for example only the brighter
+ * nuclei of an unevenly stained field; re-learning from the first cut widens the class models to
+ * everything the cut found, which lets the next cut take in the dimmer objects the strokes missed.
+ * Voxels near the cut are left out of the re-learning ({@link #BAND}). Each round costs one model
+ * fit and one cut.
+ */
+final class RefinedCut {
+  /**
+   * Width in voxels of the band on both sides of the cut that is left out when the models are
+   * learned again: blurred edges hold values between the classes, and learning them as foreground
+   * would let each round take in more of the halo (our choice, no source).
+   */
+  static final int BAND = 2;
+
+  private RefinedCut() {}
+
+  /** The final cut, the model it used, and the time spent per phase over all rounds. */
+  record Outcome(
+      Segmenter.CutOutcome cut,
+      LikelihoodModel likelihood,
+      int roundsRun,
+      double learnMs,
+      double costsMs) {}
+
+  static Outcome run(
+      Raster features,
+      SeedLabels seeds,
+      LikelihoodModel initial,
+      ModelKind kind,
+      int rounds,
+      boolean perPlane,
+      EnergyParameters parameters) {
+    LikelihoodModel likelihood = initial;
+    int n = features.size();
+    float[][] costs = new float[likelihood.classCount()][n];
+    double learnMs = 0;
+    double costsMs = 0;
+    double buildMs = 0;
+    double solveMs = 0;
+    Segmenter.CutOutcome cut = null;
+    int round = 0;
+    while (true) {
+      long start = System.nanoTime();
+      likelihood.costs(features, costs);
+      costsMs += Segmenter.millisSince(start);
+      Segmenter.CutOutcome next =
+          perPlane && features.depth() > 1
+              ? PlaneCuts.cutEachPlane(features, costs, seeds, parameters)
+              : Segmenter.cutVolume(features, costs, seeds, parameters);
+      buildMs += next.buildMs();
+      solveMs += next.solveMs();
+      boolean unchanged = cut != null && Arrays.equals(cut.mask(), next.mask());
+      cut = next;
+      if (round == rounds || unchanged || !bothClassesPresent(cut.mask())) {
+        break;
+      }
+      start = System.nanoTime();
+      likelihood = ModelLearner.learn(features, labelsFromCut(cut.mask(), seeds), kind);
+      learnMs += Segmenter.millisSince(start);
+      round++;
+    }
+    Segmenter.CutOutcome total = new Segmenter.CutOutcome(cut.mask(), cut.flow(), buildMs, solveMs);
+    return new Outcome(total, likelihood, round, learnMs, costsMs);
+  }
+
+  /**
+   * Labels 1 on the cut's foreground and 2 elsewhere, except within {@value #BAND} voxels of the
+   * cut's boundary (left unlabelled), seed voxels keeping their own label.
+   */
+  static SeedLabels labelsFromCut(byte[] mask, SeedLabels seeds) {
+    byte[] seedLabels = seeds.labels();
+    byte[] labels = new byte[mask.length];
+    for (int i = 0; i < mask.length; i++) {
+      labels[i] = (byte) (mask[i] != 0 ? SeedLabels.FOREGROUND : SeedLabels.BACKGROUND);
+    }
+    BoundaryBand.clear(labels, mask, seeds.width(), seeds.height(), seeds.depth(), BAND);
+    for (int i = 0; i < mask.length; i++) {
+      if (seedLabels[i] != 0) {
+        labels[i] = seedLabels[i];
+      }
+    }
+    return new SeedLabels(seeds.width(), seeds.height(), seeds.depth(), labels);
+  }
+
+  private static boolean bothClassesPresent(byte[] mask) {
+    boolean fg = false;
+    boolean bg = false;
+    for (byte b : mask) {
+      if (b != 0) {
+        fg = true;
+      } else {
+        bg = true;
+      }
+      if (fg && bg) {
+        return true;
+      }
+    }
+    return false;
+  }
+}

@@ -1,0 +1,50 @@
+package io.github.cleave.segment;
+
+import io.github.cleave.image.VoxelSize;
+import io.github.cleave.objects.ObjectLabels;
+import io.github.cleave.objects.ObjectMeasurement;
+import java.util.List;
+
+/**
+ * The result of one segmentation, the same whichever front door asked for it. Immutable by
+ * convention: the mask array is shared, do not modify it.
+ *
+ * @param mask the binary cut, 255 foreground / 0 background, in the image's voxel order
+ * @param objects the object label image made from the mask (split, filtered, numbered)
+ * @param measurements one entry per object, in object-number order
+ * @param energy the minimum energy in nats (the flow value over {@link
+ *     io.github.cleave.energy.CapacityScale#UNITS_PER_NAT})
+ * @param flowValue the maximum flow in capacity units, equal to the cut value
+ * @param model the model applied (learned from this image's seeds, or loaded)
+ * @param voxelSize the calibration used for measurements ({@code assumed} when the file had none)
+ * @param timings per-phase wall-clock times
+ * @param warnings things the user should know (assumed calibration, calibration differing from the
+ *     model's, flattening decisions)
+ */
+public record Segmentation(
+    byte[] mask,
+    ObjectLabels objects,
+    List<ObjectMeasurement> measurements,
+    double energy,
+    long flowValue,
+    SegmentationModel model,
+    VoxelSize voxelSize,
+    PhaseTimings timings,
+    List<String> warnings) {
+
+  public Segmentation {
+    measurements = List.copyOf(measurements);
+    warnings = List.copyOf(warnings);
+  }
+
+  /** The number of foreground voxels. */
+  public int foregroundCount() {
+    int n = 0;
+    for (byte b : mask) {
+      if (b != 0) {
+        n++;
+      }
+    }
+    return n;
+  }
+}

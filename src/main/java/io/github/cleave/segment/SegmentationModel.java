@@ -1,0 +1,50 @@
+package io.github.cleave.segment;
+
+import io.github.cleave.image.PixelKind;
+import io.github.cleave.image.VoxelSize;
+import io.github.cleave.model.LikelihoodModel;
+
+/**
+ * What is learned once and applied to many images: the likelihood model, every setting, and the
+ * values resolved while learning (contrast scale, whether and how illumination was flattened, the
+ * image's channel count and pixel kind, the calibration). Applying it to an image with another
+ * channel count fails; another calibration gives a warning. Immutable.
+ *
+ * @param likelihood the regional term, learned from the seeds of the learning image
+ * @param settings every setting, as given (channels resolved)
+ * @param contrastScale σ used by the boundary term (estimated on the learning image unless set)
+ * @param flatten whether illumination is flattened before the likelihoods
+ * @param lightBackground whether flattening treats the background as the brighter side
+ * @param imageChannels the channel count of the learning image
+ * @param pixelKind the pixel kind of the learning image
+ * @param voxelSize the calibration of the learning image
+ * @param softwareVersion the version of Cleave that learned it
+ */
+public record SegmentationModel(
+    LikelihoodModel likelihood,
+    SegmentationSettings settings,
+    double contrastScale,
+    boolean flatten,
+    boolean lightBackground,
+    int imageChannels,
+    PixelKind pixelKind,
+    VoxelSize voxelSize,
+    String softwareVersion) {
+
+  /** Format version of model files written by this version. */
+  public static final int FORMAT_VERSION = 1;
+
+  /** The same model with another likelihood (after refinement rounds). */
+  public SegmentationModel withLikelihood(LikelihoodModel refined) {
+    return new SegmentationModel(
+        refined,
+        settings,
+        contrastScale,
+        flatten,
+        lightBackground,
+        imageChannels,
+        pixelKind,
+        voxelSize,
+        softwareVersion);
+  }
+}

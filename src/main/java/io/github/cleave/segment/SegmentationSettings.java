@@ -1,0 +1,354 @@
+package io.github.cleave.segment;
+
+import io.github.cleave.flow.Neighborhood;
+import io.github.cleave.image.VoxelSize;
+import io.github.cleave.model.ModelKind;
+import io.github.cleave.objects.ObjectSettings;
+import java.util.Arrays;
+import java.util.Locale;
+
+/**
+ * Every setting of a segmentation, with the defaults a microscopist can start from. Immutable; the
+ * {@code with...} methods return changed copies. Channel numbers are 0-based here (the command line
+ * and the plugin show them 1-based).
+ *
+ * @param boundaryPenalty λ ≥ 0, the weight of the boundary term: larger gives smoother, shorter
+ *     boundaries (default {@value #DEFAULT_BOUNDARY_PENALTY})
+ * @param contrastScale σ in the units of the pixel values, or {@code NaN} to estimate it from the
+ *     image (default)
+ * @param neighborhood 4, 8 or 16 for planes, 6, 18 or 26 for stacks cut as volumes, or 0 for the
+ *     default (8 for planes, 6 for stacks)
+ * @param modelKind which likelihood model to learn
+ * @param refinementRounds how often the likelihoods are learned again from the cut and the image
+ *     cut again (0 to use the seeds' likelihoods only; default {@value
+ *     #DEFAULT_REFINEMENT_ROUNDS}); see {@code RefinedCut}
+ * @param drivingChannels the channels whose values drive the cut, or {@code null}: all three of an
+ *     RGB image, the first channel otherwise
+ * @param measuredChannels the channels measured per object, or {@code null} for all
+ * @param illumination whether to flatten uneven illumination first
+ * @param flattenRadius rolling-ball radius in pixels, larger than the largest object
+ * @param perPlane whether a stack is cut plane by plane instead of as one volume
+ * @param assumedVoxelSize the pixel size to use when the image file has no calibration, or {@code
+ *     null} for 1 pixel
+ * @param objects how objects are formed, split and filtered from the mask
+ */
+public record SegmentationSettings(
+    double boundaryPenalty,
+    double contrastScale,
+    int neighborhood,
+    ModelKind modelKind,
+    int refinementRounds,
+    int[] drivingChannels,
+    int[] measuredChannels,
+    IlluminationMode illumination,
+    double flattenRadius,
+    boolean perPlane,
+    VoxelSize assumedVoxelSize,
+    ObjectSettings objects) {
+
+  /** Default λ. */
+  public static final double DEFAULT_BOUNDARY_PENALTY = 2.0;
+
+  /** Default number of refinement rounds. */
+  public static final int DEFAULT_REFINEMENT_ROUNDS = 3;
+
+  /** Default rolling-ball radius in pixels. */
+  public static final double DEFAULT_FLATTEN_RADIUS = 50;
+
+  /**
+   * @throws IllegalArgumentException naming the value and what is accepted
+   */
+  public SegmentationSettings {
+    if (!(boundaryPenalty >= 0) || Double.isInfinite(boundaryPenalty)) {
+      throw new IllegalArgumentException(
+          "boundary penalty "
+              + boundaryPenalty
+              + ": use a number of 0 or more (typical 0.5 to 20)");
+    }
+    if (!Double.isNaN(contrastScale)
+        && (!(contrastScale > 0) || Double.isInfinite(contrastScale))) {
+      throw new IllegalArgumentException(
+          "contrast scale " + contrastScale + ": use a positive number, or 'auto'");
+    }
+    if (neighborhood != 0) {
+      Neighborhood.of(neighborhood); // throws naming the accepted values
+    }
+    if (refinementRounds < 0 || refinementRounds > 20) {
+      throw new IllegalArgumentException(
+          "refinement rounds " + refinementRounds + ": use a whole number from 0 to 20");
+    }
+    if (!(flattenRadius > 0) || Double.isInfinite(flattenRadius)) {
+      throw new IllegalArgumentException(
+          "flattening radius " + flattenRadius + " pixels: use a positive number");
+    }
+    drivingChannels = checkChannels(drivingChannels, "driving");
+    measuredChannels = checkChannels(measuredChannels, "measured");
+  }
+
+  /** The defaults. */
+  public static SegmentationSettings defaults() {
+    return new SegmentationSettings(
+        DEFAULT_BOUNDARY_PENALTY,
+        Double.NaN,
+        0,
+        ModelKind.AUTO,
+        DEFAULT_REFINEMENT_ROUNDS,
+        null,
+        null,
+        IlluminationMode.AUTO,
+        DEFAULT_FLATTEN_RADIUS,
+        false,
+        null,
+        ObjectSettings.DEFAULT);
+  }
+
+  public SegmentationSettings withBoundaryPenalty(double lambda) {
+    return new SegmentationSettings(
+        lambda,
+        contrastScale,
+        neighborhood,
+        modelKind,
+        refinementRounds,
+        drivingChannels,
+        measuredChannels,
+        illumination,
+        flattenRadius,
+        perPlane,
+        assumedVoxelSize,
+        objects);
+  }
+
+  public SegmentationSettings withRefinementRounds(int rounds) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        contrastScale,
+        neighborhood,
+        modelKind,
+        rounds,
+        drivingChannels,
+        measuredChannels,
+        illumination,
+        flattenRadius,
+        perPlane,
+        assumedVoxelSize,
+        objects);
+  }
+
+  public SegmentationSettings withContrastScale(double sigma) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        sigma,
+        neighborhood,
+        modelKind,
+        refinementRounds,
+        drivingChannels,
+        measuredChannels,
+        illumination,
+        flattenRadius,
+        perPlane,
+        assumedVoxelSize,
+        objects);
+  }
+
+  public SegmentationSettings withNeighborhood(int n) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        contrastScale,
+        n,
+        modelKind,
+        refinementRounds,
+        drivingChannels,
+        measuredChannels,
+        illumination,
+        flattenRadius,
+        perPlane,
+        assumedVoxelSize,
+        objects);
+  }
+
+  public SegmentationSettings withModelKind(ModelKind kind) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        contrastScale,
+        neighborhood,
+        kind,
+        refinementRounds,
+        drivingChannels,
+        measuredChannels,
+        illumination,
+        flattenRadius,
+        perPlane,
+        assumedVoxelSize,
+        objects);
+  }
+
+  public SegmentationSettings withDrivingChannels(int[] channels) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        contrastScale,
+        neighborhood,
+        modelKind,
+        refinementRounds,
+        channels,
+        measuredChannels,
+        illumination,
+        flattenRadius,
+        perPlane,
+        assumedVoxelSize,
+        objects);
+  }
+
+  public SegmentationSettings withMeasuredChannels(int[] channels) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        contrastScale,
+        neighborhood,
+        modelKind,
+        refinementRounds,
+        drivingChannels,
+        channels,
+        illumination,
+        flattenRadius,
+        perPlane,
+        assumedVoxelSize,
+        objects);
+  }
+
+  public SegmentationSettings withIllumination(IlluminationMode mode, double radius) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        contrastScale,
+        neighborhood,
+        modelKind,
+        refinementRounds,
+        drivingChannels,
+        measuredChannels,
+        mode,
+        radius,
+        perPlane,
+        assumedVoxelSize,
+        objects);
+  }
+
+  public SegmentationSettings withPerPlane(boolean planes) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        contrastScale,
+        neighborhood,
+        modelKind,
+        refinementRounds,
+        drivingChannels,
+        measuredChannels,
+        illumination,
+        flattenRadius,
+        planes,
+        assumedVoxelSize,
+        objects);
+  }
+
+  public SegmentationSettings withAssumedVoxelSize(VoxelSize size) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        contrastScale,
+        neighborhood,
+        modelKind,
+        refinementRounds,
+        drivingChannels,
+        measuredChannels,
+        illumination,
+        flattenRadius,
+        perPlane,
+        size,
+        objects);
+  }
+
+  public SegmentationSettings withObjects(ObjectSettings o) {
+    return new SegmentationSettings(
+        boundaryPenalty,
+        contrastScale,
+        neighborhood,
+        modelKind,
+        refinementRounds,
+        drivingChannels,
+        measuredChannels,
+        illumination,
+        flattenRadius,
+        perPlane,
+        assumedVoxelSize,
+        o);
+  }
+
+  /** A copy of the driving channels, or null. */
+  @Override
+  public int[] drivingChannels() {
+    return drivingChannels == null ? null : drivingChannels.clone();
+  }
+
+  /** A copy of the measured channels, or null. */
+  @Override
+  public int[] measuredChannels() {
+    return measuredChannels == null ? null : measuredChannels.clone();
+  }
+
+  @Override
+  public boolean equals(Object o) {
+    return o instanceof SegmentationSettings s
+        && Double.compare(boundaryPenalty, s.boundaryPenalty) == 0
+        && Double.compare(contrastScale, s.contrastScale) == 0
+        && neighborhood == s.neighborhood
+        && modelKind == s.modelKind
+        && refinementRounds == s.refinementRounds
+        && Arrays.equals(drivingChannels, s.drivingChannels)
+        && Arrays.equals(measuredChannels, s.measuredChannels)
+        && illumination == s.illumination
+        && Double.compare(flattenRadius, s.flattenRadius) == 0
+        && perPlane == s.perPlane
+        && java.util.Objects.equals(assumedVoxelSize, s.assumedVoxelSize)
+        && java.util.Objects.equals(objects, s.objects);
+  }
+
+  @Override
+  public int hashCode() {
+    return java.util.Objects.hash(
+        boundaryPenalty,
+        contrastScale,
+        neighborhood,
+        modelKind,
+        refinementRounds,
+        Arrays.hashCode(drivingChannels),
+        Arrays.hashCode(measuredChannels),
+        illumination,
+        flattenRadius,
+        perPlane,
+        assumedVoxelSize,
+        objects);
+  }
+
+  @Override
+  public String toString() {
+    return String.format(
+        Locale.ROOT,
+        "boundary penalty %s, contrast scale %s, neighborhood %s, model %s, illumination %s",
+        boundaryPenalty,
+        Double.isNaN(contrastScale) ? "auto" : contrastScale,
+        neighborhood == 0 ? "default" : neighborhood,
+        modelKind,
+        illumination);
+  }
+
+  private static int[] checkChannels(int[] channels, String what) {
+    if (channels == null) {
+      return null;
+    }
+    if (channels.length == 0) {
+      throw new IllegalArgumentException("no " + what + " channel given: name at least one");
+    }
+    for (int c : channels) {
+      if (c < 0) {
+        throw new IllegalArgumentException(
+            what + " channel " + (c + 1) + ": channels are numbered from 1");
+      }
+    }
+    return channels.clone();
+  }
+}

@@ -1,0 +1,393 @@
+package io.github.cleave.segment;
+
+import io.github.cleave.energy.CapacityScale;
+import io.github.cleave.energy.ContrastScale;
+import io.github.cleave.energy.CutProblem;
+import io.github.cleave.energy.EnergyParameters;
+import io.github.cleave.flow.MaxFlowResult;
+import io.github.cleave.flow.Neighborhood;
+import io.github.cleave.flow.SolveStatus;
+import io.github.cleave.image.BadInputException;
+import io.github.cleave.image.PixelKind;
+import io.github.cleave.image.Raster;
+import io.github.cleave.image.SeedLabels;
+import io.github.cleave.image.VoxelSize;
+import io.github.cleave.model.LikelihoodModel;
+import io.github.cleave.model.ModelLearner;
+import io.github.cleave.objects.ObjectLabels;
+import io.github.cleave.objects.ObjectMeasurement;
+import io.github.cleave.objects.ObjectMeasurements;
+import io.github.cleave.objects.ObjectPipeline;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.CancellationException;
+
+/**
+ * The one segmentation pipeline that every front door calls: image, seeds and settings in, one
+ * {@link Segmentation} out, bit for bit the same whoever calls it.
+ *
+ * <ol>
+ *   <li>Choose the driving channels; flatten illumination if asked or, in AUTO mode, if the image
+ *       shows a strong gradient ({@link Illumination}).
+ *   <li>Learn the likelihood of each class from its seed voxels ({@link ModelLearner}), or take
+ *       them from a saved {@link SegmentationModel}.
+ *   <li>Build the grid graph of the energy ({@link CutProblem}) and cut it with the grid max-flow
+ *       engine; the source side is the foreground mask.
+ *   <li>Form objects from the mask (holes, splitting of touching objects, size and edge filters)
+ *       and measure them on the raw values of the measured channels, in calibrated units.
+ * </ol>
+ *
+ * <p>Stateless and thread-safe: separate calls may run in parallel. A call whose thread is
+ * interrupted stops and throws {@link CancellationException}.
+ */
+public final class Segmenter {
+  private Segmenter() {}
+
+  /**
+   * Learns from the seeds of {@code image} and segments it, the seeds acting as hard constraints.
+   */
+  public static Segmentation segment(
+      Raster image, SeedLabels seeds, SegmentationSettings settings) {
+    Learned learned = learnWithFeatures(image, seeds, settings);
+    return applyTo(
+        learned.model,
+        image,
+        seeds,
+        learned.features,
+        learned.flattenMs,
+        learned.learnMs,
+        learned.warnings);
+  }
+
+  /**
+   * Learns a model from the seeds of {@code image} (and the refinement rounds of its cut), for
+   * {@link #apply} to other images.
+   */
+  public static SegmentationModel learn(
+      Raster image, SeedLabels seeds, SegmentationSettings settings) {
+    return segment(image, seeds, settings).model();
+  }
+
+  /**
+   * Segments {@code image} with a saved model: the model's likelihoods start the cut and are then
+   * re-estimated on this image for the model's refinement rounds ({@code RefinedCut}); {@code
+   * seeds} (may be null) are hard constraints.
+   *
+   * @throws BadInputException if the image has another channel count than the model's, or seeds do
+   *     not fit the image
+   */
+  public static Segmentation apply(SegmentationModel model, Raster image, SeedLabels seeds) {
+    if (image.channelCount() != model.imageChannels()) {
+      throw new BadInputException(
+          String.format(
+              Locale.ROOT,
+              "the image has %d channel(s) but the model was learned on an image with %d: apply"
+                  + " it to images like the one it was learned on, or learn a new model",
+              image.channelCount(),
+              model.imageChannels()));
+    }
+    SeedLabels hard =
+        seeds == null
+            ? SeedLabels.empty(image.width(), image.height(), image.depth())
+            : checkSeeds(image, seeds);
+    List<String> warnings = new ArrayList<>();
+    VoxelSize size = resolveVoxelSize(image, model.settings(), warnings);
+    if (!size.assumed() && !model.voxelSize().assumed() && size.differsFrom(model.voxelSize())) {
+      warnings.add(
+          String.format(
+              Locale.ROOT,
+              "the image's pixel size (%s x %s x %s %s) differs from the model's (%s x %s x %s %s):"
+                  + " boundary lengths and size limits are scaled to this image",
+              size.x(),
+              size.y(),
+              size.z(),
+              size.unit(),
+              model.voxelSize().x(),
+              model.voxelSize().y(),
+              model.voxelSize().z(),
+              model.voxelSize().unit()));
+    }
+    Raster calibrated = image.withVoxelSize(size);
+    long start = System.nanoTime();
+    Raster features = features(calibrated, model.settings());
+    if (model.flatten()) {
+      features =
+          Illumination.flatten(
+                  features, hard, model.settings().flattenRadius(), model.lightBackground())
+              .flattened();
+    }
+    double flattenMs = millisSince(start);
+    return applyTo(model, calibrated, hard, features, flattenMs, 0, warnings);
+  }
+
+  private record Learned(
+      SegmentationModel model,
+      Raster features,
+      double flattenMs,
+      double learnMs,
+      List<String> warnings) {}
+
+  private static Learned learnWithFeatures(
+      Raster image, SeedLabels seeds, SegmentationSettings settings) {
+    checkSeeds(image, seeds);
+    List<String> warnings = new ArrayList<>();
+    VoxelSize size = resolveVoxelSize(image, settings, warnings);
+    Raster calibrated = image.withVoxelSize(size);
+    SegmentationSettings resolved = settings.withDrivingChannels(drivingChannels(image, settings));
+    long start = System.nanoTime();
+    Raster features = features(calibrated, resolved);
+    boolean light = Illumination.isLightBackground(features, seeds);
+    boolean flatten = resolved.illumination() == IlluminationMode.ON;
+    if (resolved.illumination() != IlluminationMode.OFF) {
+      Illumination.Flattening f =
+          Illumination.flatten(features, seeds, resolved.flattenRadius(), light);
+      if (resolved.illumination() == IlluminationMode.AUTO) {
+        flatten = Illumination.isStrongGradient(f.trendStrength());
+        warnings.add(
+            String.format(
+                Locale.ROOT,
+                "illumination %s: trend strength %s (flattened from %s)",
+                flatten ? "flattened" : "left as it is",
+                formatStrengths(f.trendStrength()),
+                Illumination.STRONG_GRADIENT));
+      }
+      if (flatten) {
+        features = f.flattened();
+      }
+    }
+    double flattenMs = millisSince(start);
+    start = System.nanoTime();
+    LikelihoodModel likelihood = ModelLearner.learn(features, seeds, resolved.modelKind());
+    Neighborhood nb = neighborhood(image, resolved);
+    double sigma =
+        Double.isNaN(resolved.contrastScale())
+            ? ContrastScale.estimate(features, nb)
+            : resolved.contrastScale();
+    double learnMs = millisSince(start);
+    SegmentationModel model =
+        new SegmentationModel(
+            likelihood,
+            resolved,
+            sigma,
+            flatten,
+            light,
+            image.channelCount(),
+            image.kind(),
+            size,
+            SoftwareVersion.get());
+    return new Learned(model, features, flattenMs, learnMs, warnings);
+  }
+
+  private static Segmentation applyTo(
+      SegmentationModel model,
+      Raster image,
+      SeedLabels seeds,
+      Raster features,
+      double flattenMs,
+      double learnMs,
+      List<String> warnings) {
+    SegmentationSettings settings = model.settings();
+    Neighborhood nb = neighborhood(image, settings);
+    EnergyParameters parameters =
+        new EnergyParameters(
+            settings.boundaryPenalty(), model.contrastScale(), nb, image.voxelSize());
+    RefinedCut.Outcome refined =
+        RefinedCut.run(
+            features,
+            seeds,
+            model.likelihood(),
+            settings.modelKind(),
+            settings.refinementRounds(),
+            settings.perPlane(),
+            parameters);
+    CutOutcome cut = refined.cut();
+    SegmentationModel finalModel = model.withLikelihood(refined.likelihood());
+    long start = System.nanoTime();
+    ObjectLabels objects =
+        ObjectPipeline.run(
+            cut.mask,
+            image.width(),
+            image.height(),
+            image.depth(),
+            image.voxelSize(),
+            settings.objects(),
+            foregroundSeedMask(seeds));
+    double objectsMs = millisSince(start);
+    start = System.nanoTime();
+    List<ObjectMeasurement> measurements =
+        ObjectMeasurements.measure(
+            objects, image.voxelSize(), image, measuredChannels(image, settings));
+    double measureMs = millisSince(start);
+    return new Segmentation(
+        cut.mask,
+        objects,
+        measurements,
+        CapacityScale.toNats(cut.flow),
+        cut.flow,
+        finalModel,
+        image.voxelSize(),
+        new PhaseTimings(
+            flattenMs,
+            learnMs + refined.learnMs(),
+            refined.costsMs(),
+            cut.buildMs,
+            cut.solveMs,
+            objectsMs,
+            measureMs),
+        warnings);
+  }
+
+  /** The mask and flow of a cut with the time spent building and solving. */
+  record CutOutcome(byte[] mask, long flow, double buildMs, double solveMs) {}
+
+  static CutOutcome cutVolume(
+      Raster features, float[][] costs, SeedLabels seeds, EnergyParameters parameters) {
+    long start = System.nanoTime();
+    CutProblem problem =
+        CutProblem.build(features, costs[0], costs[1], seeds, parameters, assertionsEnabled());
+    double buildMs = millisSince(start);
+    MaxFlowResult result = problem.solve();
+    if (result.status() == SolveStatus.INTERRUPTED) {
+      throw new CancellationException("segmentation interrupted");
+    }
+    return new CutOutcome(
+        CutProblem.mask(result), result.flowValue(), buildMs, result.solveNanos() / 1e6);
+  }
+
+  private static SeedLabels checkSeeds(Raster image, SeedLabels seeds) {
+    if (!seeds.fits(image)) {
+      throw new BadInputException(
+          String.format(
+              Locale.ROOT,
+              "the seeds are %d x %d x %d but the image is %d x %d x %d: draw the seeds on this"
+                  + " image, or give the seed file made for it",
+              seeds.width(),
+              seeds.height(),
+              seeds.depth(),
+              image.width(),
+              image.height(),
+              image.depth()));
+    }
+    int max = seeds.maxLabel();
+    if (max > SeedLabels.BACKGROUND) {
+      throw new BadInputException(
+          "the seeds use class label "
+              + max
+              + "; this version segments foreground (1) against background (2) only: relabel"
+              + " further classes as 1 or 2");
+    }
+    return seeds;
+  }
+
+  private static VoxelSize resolveVoxelSize(
+      Raster image, SegmentationSettings settings, List<String> warnings) {
+    VoxelSize size = image.voxelSize();
+    if (size.assumed()) {
+      VoxelSize assumed =
+          settings.assumedVoxelSize() != null ? settings.assumedVoxelSize() : VoxelSize.PIXELS;
+      size = new VoxelSize(assumed.x(), assumed.y(), assumed.z(), assumed.unit(), true);
+      warnings.add(
+          String.format(
+              Locale.ROOT,
+              "the image has no spatial calibration: assumed %s x %s x %s %s per voxel",
+              size.x(),
+              size.y(),
+              size.z(),
+              size.unit()));
+    }
+    return size;
+  }
+
+  static int[] drivingChannels(Raster image, SegmentationSettings settings) {
+    int[] chosen = settings.drivingChannels();
+    if (chosen == null) {
+      if (image.kind() == PixelKind.RGB) {
+        return new int[] {0, 1, 2};
+      }
+      return new int[] {0};
+    }
+    checkChannelsExist(image, chosen, "driving");
+    return chosen;
+  }
+
+  private static int[] measuredChannels(Raster image, SegmentationSettings settings) {
+    int[] chosen = settings.measuredChannels();
+    if (chosen == null) {
+      int[] all = new int[image.channelCount()];
+      for (int c = 0; c < all.length; c++) {
+        all[c] = c;
+      }
+      return all;
+    }
+    checkChannelsExist(image, chosen, "measured");
+    return chosen;
+  }
+
+  private static void checkChannelsExist(Raster image, int[] channels, String what) {
+    for (int c : channels) {
+      if (c >= image.channelCount()) {
+        throw new BadInputException(
+            String.format(
+                Locale.ROOT,
+                "%s channel %d does not exist: the image has channels 1 to %d",
+                what,
+                c + 1,
+                image.channelCount()));
+      }
+    }
+  }
+
+  private static Raster features(Raster image, SegmentationSettings settings) {
+    return image.selectChannels(drivingChannels(image, settings));
+  }
+
+  static Neighborhood neighborhood(Raster image, SegmentationSettings settings) {
+    boolean volume = image.depth() > 1 && !settings.perPlane();
+    int n = settings.neighborhood() != 0 ? settings.neighborhood() : volume ? 6 : 8;
+    Neighborhood nb = Neighborhood.of(n);
+    if (nb.isThreeDimensional() != volume) {
+      throw new BadInputException(
+          volume
+              ? "neighborhood "
+                  + n
+                  + " is for single planes; a stack cut as a volume takes 6,"
+                  + " 18 or 26 (or cut it plane by plane)"
+              : "neighborhood " + n + " is for stacks cut as volumes; a plane takes 4, 8 or 16");
+    }
+    return nb;
+  }
+
+  private static byte[] foregroundSeedMask(SeedLabels seeds) {
+    byte[] labels = seeds.labels();
+    byte[] marks = new byte[labels.length];
+    for (int i = 0; i < labels.length; i++) {
+      if (labels[i] == SeedLabels.FOREGROUND) {
+        marks[i] = (byte) 255;
+      }
+    }
+    return marks;
+  }
+
+  private static String formatStrengths(double[] strengths) {
+    StringBuilder sb = new StringBuilder();
+    for (double s : strengths) {
+      if (sb.length() > 0) {
+        sb.append(", ");
+      }
+      sb.append(String.format(Locale.ROOT, "%.2f", s));
+    }
+    return sb.toString();
+  }
+
+  static double millisSince(long start) {
+    return (System.nanoTime() - start) / 1e6;
+  }
+
+  @SuppressWarnings("AssertWithSideEffects")
+  private static boolean assertionsEnabled() {
+    boolean on = false;
+    assert on = true;
+    return on;
+  }
+}
