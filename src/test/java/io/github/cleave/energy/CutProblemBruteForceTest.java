@@ -63,10 +63,14 @@ class CutProblemBruteForceTest {
     MaxFlowResult result = problem.solve();
     assertThat(problem.solver().checkCertificate()).isTrue();
 
+    VoxelSize s = parameters.voxelSize();
+    double[] lengthWeight = LengthWeights.of(nb, 1, s.y() / s.x(), s.z() / s.x());
     long best = Long.MAX_VALUE;
     for (int labelling = 0; labelling < (1 << n); labelling++) {
       if (respectsSeeds(labelling, seeds)) {
-        best = Math.min(best, energy(labelling, seeds, image, fgCost, bgCost, parameters));
+        best =
+            Math.min(
+                best, energy(labelling, seeds, image, fgCost, bgCost, parameters, lengthWeight));
       }
     }
     assertThat(result.flowValue()).isEqualTo(best);
@@ -77,7 +81,8 @@ class CutProblemBruteForceTest {
       }
     }
     assertThat(respectsSeeds(cutLabelling, seeds)).isTrue();
-    assertThat(energy(cutLabelling, seeds, image, fgCost, bgCost, parameters)).isEqualTo(best);
+    assertThat(energy(cutLabelling, seeds, image, fgCost, bgCost, parameters, lengthWeight))
+        .isEqualTo(best);
   }
 
   private static boolean respectsSeeds(int labelling, byte[] seeds) {
@@ -97,14 +102,13 @@ class CutProblemBruteForceTest {
       Raster image,
       float[] fgCost,
       float[] bgCost,
-      EnergyParameters parameters) {
+      EnergyParameters parameters,
+      double[] lengthWeight) {
     int w = image.width();
     int h = image.height();
     int d = image.depth();
     float[] v = image.channel(0);
     Neighborhood nb = parameters.neighborhood();
-    VoxelSize s = parameters.voxelSize();
-    double[] lengthWeight = LengthWeights.of(nb, 1, s.y() / s.x(), s.z() / s.x());
     double sigma = parameters.contrastScale();
     long e = 0;
     for (int z = 0; z < d; z++) {
