@@ -1,6 +1,8 @@
 package io.github.cleave.cli;
 
+import io.github.cleave.image.BadInputException;
 import java.io.PrintWriter;
+import java.util.concurrent.CancellationException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -15,10 +17,20 @@ import picocli.CommandLine.Command;
     versionProvider = CleaveCommand.Version.class,
     description = {
       "Seeded minimum-cut segmentation of microscope images, and its max-flow engine.",
+      "Start with 'demo' (segments the bundled samples), then 'segment', 'learn' and 'apply'.",
       "Research tool, not a diagnostic device: validate segmentations against expert"
           + " annotation; local rules and licensed practice govern any clinical use."
     },
-    subcommands = {MaxflowCommand.class, MakeMaxflowCommand.class, CommandLine.HelpCommand.class})
+    subcommands = {
+      SegmentCommand.class,
+      LearnCommand.class,
+      ApplyCommand.class,
+      DemoCommand.class,
+      MakeSamplesCommand.class,
+      MaxflowCommand.class,
+      MakeMaxflowCommand.class,
+      CommandLine.HelpCommand.class
+    })
 public final class CleaveCommand implements Runnable {
 
   /** Runs the command line and exits with its exit code. */
@@ -42,9 +54,13 @@ public final class CleaveCommand implements Runnable {
         });
     cl.setExecutionExceptionHandler(
         (ex, commandLine, parseResult) -> {
-          if (ex instanceof InputException) {
+          if (ex instanceof InputException || ex instanceof BadInputException) {
             commandLine.getErr().println("cleave: " + ex.getMessage());
             return ExitCodes.BAD_INPUT;
+          }
+          if (ex instanceof CancellationException) {
+            commandLine.getErr().println("cleave: interrupted; no partial file was left");
+            return ExitCodes.INTERRUPTED;
           }
           throw ex;
         });

@@ -1,0 +1,68 @@
+package io.github.cleave.cli;
+
+import io.github.cleave.io.ModelFiles;
+import io.github.cleave.io.SegmentationFiles;
+import io.github.cleave.segment.Segmentation;
+import io.github.cleave.segment.SegmentationModel;
+import io.github.cleave.segment.Segmenter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code cleave apply}: segments one image with a saved model. */
+@Command(
+    name = "apply",
+    mixinStandardHelpOptions = true,
+    sortOptions = false,
+    description = {
+      "Segments one image with a model saved by 'learn' (or 'segment --save-model'), writing the"
+          + " same outputs as 'segment'. Seeds are optional and act as fixed marks.",
+      "Exit codes: 0 done; 2 bad arguments or unusable input (for example an image with other"
+          + " channels than the model's); 130 interrupted."
+    })
+final class ApplyCommand implements Callable<Integer> {
+  @Option(
+      names = "--model",
+      required = true,
+      paramLabel = "MODEL.json",
+      description = "Model file.")
+  Path model;
+
+  @Option(names = "--image", required = true, paramLabel = "IMAGE", description = "TIFF or PNG.")
+  Path image;
+
+  @Option(
+      names = "--seeds",
+      paramLabel = "SEEDS",
+      description = "Optional seed label image or ROI zip (default: none).")
+  Path seeds;
+
+  @Option(
+      names = "--out",
+      required = true,
+      paramLabel = "FOLDER",
+      description = "Output folder, created if missing; must not be the image's folder.")
+  Path out;
+
+  @Spec CommandSpec spec;
+
+  @Override
+  public Integer call() throws Exception {
+    SegmentationModel m = ModelFiles.read(model);
+    ImageInputs.ImageWithSeeds in =
+        seeds == null
+            ? new ImageInputs.ImageWithSeeds(io.github.cleave.io.ImageFiles.read(image), null, null)
+            : ImageInputs.read(image, seeds, true);
+    SegmentationFiles.Inputs inputs = new SegmentationFiles.Inputs(image, in.seedFile(), model);
+    SegmentationFiles.prepareOutputFolder(out, inputs);
+    Progress.say(spec, "segmenting " + image.getFileName() + " with " + model.getFileName());
+    Segmentation result = Segmenter.apply(m, in.image().raster(), in.seeds());
+    String name = SegmentationFiles.baseName(image);
+    SegmentationFiles.write(out, name, in.image(), in.seeds(), result, inputs, "apply");
+    Summary.print(name, result, spec.commandLine().getOut(), spec.commandLine().getErr());
+    return ExitCodes.OK;
+  }
+}

@@ -1,0 +1,80 @@
+package io.github.cleave.cli;
+
+import io.github.cleave.io.ModelFiles;
+import io.github.cleave.segment.Segmentation;
+import io.github.cleave.segment.Segmenter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code cleave learn}: learns a model from one image's seeds and saves it as JSON. */
+@Command(
+    name = "learn",
+    mixinStandardHelpOptions = true,
+    sortOptions = false,
+    description = {
+      "Learns a model from one image and its seeds (the likelihoods of foreground and"
+          + " background, refined by the cut, with every setting) and saves it as JSON, to segment"
+          + " other images with 'apply' or a folder run.",
+      "Exit codes: 0 done; 2 bad arguments or unusable input; 130 interrupted."
+    })
+final class LearnCommand implements Callable<Integer> {
+  @Option(names = "--image", required = true, paramLabel = "IMAGE", description = "TIFF or PNG.")
+  Path image;
+
+  @Option(
+      names = "--seeds",
+      paramLabel = "SEEDS",
+      description = "Seed label image or ROI zip (default: NAME.seeds.tif|png|zip beside IMAGE).")
+  Path seeds;
+
+  @Option(
+      names = "--model",
+      required = true,
+      paramLabel = "MODEL.json",
+      description = "The model file to write.")
+  Path model;
+
+  @Option(names = "--force", description = "Replace an existing model file.")
+  boolean force;
+
+  @Mixin SegmentationOptions options;
+
+  @Spec CommandSpec spec;
+
+  @Override
+  public Integer call() throws Exception {
+    var settings = options.settings();
+    if (Files.exists(model) && !force) {
+      throw new InputException(model + " exists: use --force to replace it");
+    }
+    ImageInputs.ImageWithSeeds in = ImageInputs.read(image, seeds, true);
+    for (Path input : new Path[] {image, in.seedFile()}) {
+      if (Files.exists(model) && Files.isSameFile(model, input)) {
+        throw new InputException("--model " + model + " is an input file: choose another name");
+      }
+    }
+    Progress.say(spec, "learning from " + image.getFileName());
+    Segmentation result = Segmenter.segment(in.image().raster(), in.seeds(), settings);
+    ModelFiles.write(model, result.model());
+    for (String w : result.warnings()) {
+      spec.commandLine().getErr().println("cleave: note: " + w);
+    }
+    spec.commandLine()
+        .getOut()
+        .println(
+            String.format(
+                Locale.ROOT,
+                "model written to %s (contrast scale %.4g, illumination %s)",
+                model,
+                result.model().contrastScale(),
+                result.model().flatten() ? "flattened" : "kept"));
+    return ExitCodes.OK;
+  }
+}

@@ -1,0 +1,82 @@
+package io.github.cleave.cli;
+
+import io.github.cleave.io.ModelFiles;
+import io.github.cleave.io.SegmentationFiles;
+import io.github.cleave.segment.Segmentation;
+import io.github.cleave.segment.Segmenter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code cleave segment}: learns the likelihoods from an image's seeds, cuts it, and writes the
+ * outputs of {@link SegmentationFiles}.
+ */
+@Command(
+    name = "segment",
+    mixinStandardHelpOptions = true,
+    sortOptions = false,
+    description = {
+      "Segments one image from its seeds: learns what foreground and background look like from"
+          + " the seed strokes, computes the minimum cut, forms and measures objects, and writes"
+          + " NAME.mask.tif, NAME.labels.tif, NAME.objects.csv, NAME.rois.zip, NAME.overlay.png"
+          + " and NAME.record.json into the output folder.",
+      "Seeds: a seed label image (0 none, 1 foreground, 2 background) or an ImageJ ROI zip whose"
+          + " ROI names start with 'foreground'/'fg' or 'background'/'bg'.",
+      "Exit codes: 0 done; 2 bad arguments or unusable input; 130 interrupted."
+    })
+final class SegmentCommand implements Callable<Integer> {
+  @Option(names = "--image", required = true, paramLabel = "IMAGE", description = "TIFF or PNG.")
+  Path image;
+
+  @Option(
+      names = "--seeds",
+      paramLabel = "SEEDS",
+      description = "Seed label image or ROI zip (default: NAME.seeds.tif|png|zip beside IMAGE).")
+  Path seeds;
+
+  @Option(
+      names = "--out",
+      required = true,
+      paramLabel = "FOLDER",
+      description = "Output folder, created if missing; must not be the image's folder.")
+  Path out;
+
+  @Option(
+      names = "--save-model",
+      paramLabel = "MODEL.json",
+      description = "Also save the learned model, for 'apply' and folder runs.")
+  Path saveModel;
+
+  @Mixin SegmentationOptions options;
+
+  @Spec CommandSpec spec;
+
+  @Override
+  public Integer call() throws Exception {
+    var settings = options.settings();
+    ImageInputs.ImageWithSeeds in = ImageInputs.read(image, seeds, true);
+    SegmentationFiles.Inputs inputs = new SegmentationFiles.Inputs(image, in.seedFile(), null);
+    SegmentationFiles.prepareOutputFolder(out, inputs);
+    if (saveModel != null && Files.exists(saveModel)) {
+      throw new InputException(
+          "--save-model "
+              + saveModel
+              + " exists: choose a new file name (a model is never replaced)");
+    }
+    Progress.say(spec, "segmenting " + image.getFileName());
+    Segmentation result = Segmenter.segment(in.image().raster(), in.seeds(), settings);
+    String name = SegmentationFiles.baseName(image);
+    SegmentationFiles.write(out, name, in.image(), in.seeds(), result, inputs, "segment");
+    if (saveModel != null) {
+      ModelFiles.write(saveModel, result.model());
+    }
+    Summary.print(name, result, spec.commandLine().getOut(), spec.commandLine().getErr());
+    return ExitCodes.OK;
+  }
+}

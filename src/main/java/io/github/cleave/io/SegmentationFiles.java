@@ -1,0 +1,154 @@
+package io.github.cleave.io;
+
+import io.github.cleave.image.BadInputException;
+import io.github.cleave.image.PixelKind;
+import io.github.cleave.image.Raster;
+import io.github.cleave.image.SeedLabels;
+import io.github.cleave.objects.RoiExport;
+import io.github.cleave.render.OverlayPicture;
+import io.github.cleave.segment.Segmentation;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Writes the outputs of one segmentation under the names of DESIGN.md, for an input {@code
+ * NAME.EXT}: {@code NAME.mask.tif} (8-bit, 0/255), {@code NAME.labels.tif} (16-bit object numbers),
+ * {@code NAME.objects.csv}, {@code NAME.rois.zip}, {@code NAME.overlay.png} (the cut as a thin
+ * contour over the image, strokes in their colours) and, last, {@code NAME.record.json} (settings,
+ * versions, timings, checksums): a record present means every other output of that image is
+ * complete. Every file is written atomically; none may be an input file.
+ */
+public final class SegmentationFiles {
+  private SegmentationFiles() {}
+
+  /** What went into a segmentation, for the record and for input protection. */
+  public record Inputs(Path image, Path seeds, Path model) {}
+
+  /** The output names for an input file name (the part before the last dot). */
+  public static String baseName(Path image) {
+    String name = image.getFileName().toString();
+    int dot = name.lastIndexOf('.');
+    return dot > 0 ? name.substring(0, dot) : name;
+  }
+
+  /** The record file of an input in {@code outDir}; it is written last. */
+  public static Path recordFile(Path outDir, String name) {
+    return outDir.resolve(name + ".record.json");
+  }
+
+  /**
+   * Checks that {@code outDir} is usable: not the folder of an input file, not an existing file;
+   * creates it if missing.
+   *
+   * @throws BadInputException if the output folder is an input folder or cannot be created
+   */
+  public static void prepareOutputFolder(Path outDir, Inputs inputs) {
+    Path out = outDir.toAbsolutePath().normalize();
+    for (Path input : inputList(inputs)) {
+      Path folder = input.toAbsolutePath().normalize().getParent();
+      if (out.equals(folder)) {
+        throw new BadInputException(
+            "the output folder "
+                + outDir
+                + " is the folder of the input "
+                + input.getFileName()
+                + ": choose another output folder so that inputs are never overwritten");
+      }
+    }
+    if (Files.exists(out) && !Files.isDirectory(out)) {
+      throw new BadInputException(
+          "the output " + outDir + " is a file, not a folder: give a folder for the results");
+    }
+    try {
+      Files.createDirectories(out);
+    } catch (IOException e) {
+      throw new BadInputException(
+          "cannot create the output folder " + outDir + " (" + e.getMessage() + ")", e);
+    }
+  }
+
+  /**
+   * Writes every output of {@code result} for the image {@code image} into {@code outDir}.
+   *
+   * @param seeds the seeds to draw on the overlay (may be null)
+   */
+  public static void write(
+      Path outDir,
+      String name,
+      LoadedImage image,
+      SeedLabels seeds,
+      Segmentation result,
+      Inputs inputs,
+      String command)
+      throws IOException {
+    Raster raster = image.raster();
+    List<Path> protectedFiles = inputList(inputs);
+    int w = raster.width();
+    int h = raster.height();
+    int d = raster.depth();
+    Path mask = outDir.resolve(name + ".mask.tif");
+    Path labels = outDir.resolve(name + ".labels.tif");
+    Path csv = outDir.resolve(name + ".objects.csv");
+    Path rois = outDir.resolve(name + ".rois.zip");
+    Path overlay = outDir.resolve(name + ".overlay.png");
+    Path record = recordFile(outDir, name);
+    for (Path p : List.of(mask, labels, csv, rois, overlay, record)) {
+      ImageOutputs.checkNotInput(p, protectedFiles);
+    }
+    Files.deleteIfExists(record); // an old record must not vouch for outputs being replaced
+    ImageOutputs.writeMask(mask, result.mask(), w, h, d, result.voxelSize());
+    ImageOutputs.writeLabels(
+        labels, result.objects().labels(), result.objects().count(), w, h, d, result.voxelSize());
+    byte[] table =
+        ObjectsCsv.table(
+                result.measurements(),
+                d > 1,
+                result.voxelSize().unit(),
+                measuredChannels(result, raster))
+            .getBytes(StandardCharsets.UTF_8);
+    AtomicFiles.write(csv, out -> out.write(table));
+    byte[] zip = RoiExport.roiZip(result.objects());
+    AtomicFiles.write(rois, out -> out.write(zip));
+    ImageOutputs.writePng(
+        overlay,
+        OverlayPicture.render(
+            raster, displayChannels(raster, result), null, result.mask(), null, seeds));
+    byte[] json = RunRecord.json(name, image, inputs, result, command);
+    AtomicFiles.write(record, out -> out.write(json));
+  }
+
+  /** The channels shown in pictures: RGB as colour, otherwise the driving channels. */
+  public static int[] displayChannels(Raster raster, Segmentation result) {
+    if (raster.kind() == PixelKind.RGB) {
+      return new int[] {0, 1, 2};
+    }
+    int[] driving = result.model().settings().drivingChannels();
+    return driving != null ? driving : new int[] {0};
+  }
+
+  static int[] measuredChannels(Segmentation result, Raster raster) {
+    int[] chosen = result.model().settings().measuredChannels();
+    if (chosen != null) {
+      return chosen;
+    }
+    int[] all = new int[raster.channelCount()];
+    for (int c = 0; c < all.length; c++) {
+      all[c] = c;
+    }
+    return all;
+  }
+
+  private static List<Path> inputList(Inputs inputs) {
+    List<Path> list = new ArrayList<>();
+    for (Path p : new Path[] {inputs.image(), inputs.seeds(), inputs.model()}) {
+      if (p != null) {
+        list.add(p);
+      }
+    }
+    return list;
+  }
+}
