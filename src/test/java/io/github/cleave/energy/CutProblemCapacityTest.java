@@ -33,6 +33,7 @@ class CutProblemCapacityTest {
       Neighborhood nb =
           Neighborhood.of(volume ? VOLUME[random.nextInt(3)] : PLANE[random.nextInt(3)]);
       Raster image = randomImage(random, w, h, d, trial % 6);
+      assertThat(ContrastScale.estimate(image, nb)).isEqualTo(referenceSigma(image, nb));
       double sigma =
           random.nextBoolean()
               ? ContrastScale.estimate(image, nb)
@@ -143,6 +144,36 @@ class CutProblemCapacityTest {
         }
       }
     }
+  }
+
+  /** The contrast scale as first written: one squared difference per pair, same order. */
+  private static double referenceSigma(Raster features, Neighborhood nb) {
+    int w = features.width();
+    int h = features.height();
+    int d = features.depth();
+    double sum = 0;
+    long pairs = 0;
+    for (int k = 0; k < nb.size(); k += 2) {
+      int dx = nb.dx(k);
+      int dy = nb.dy(k);
+      int dz = nb.dz(k);
+      int step = dx + w * (dy + h * dz);
+      for (int z = Math.max(0, -dz); z < Math.min(d, d - dz); z++) {
+        for (int y = Math.max(0, -dy); y < Math.min(h, h - dy); y++) {
+          for (int x = Math.max(0, -dx); x < Math.min(w, w - dx); x++) {
+            int p = x + w * (y + h * z);
+            double sq = ContrastScale.squaredDifference(features, p, p + step);
+            if (Double.isFinite(sq)) {
+              sum += sq;
+              pairs++;
+            }
+          }
+        }
+      }
+    }
+    double mean = pairs == 0 ? 0 : sum / pairs;
+    double sigma = Math.sqrt(0.5 * mean);
+    return sigma > 0 ? sigma : Double.MIN_NORMAL;
   }
 
   private static int referenceHard(int[] caps, int n, int directions) {
