@@ -136,7 +136,7 @@ public final class GridBenchmark {
     return Double.isNaN(value) ? "-" : String.format(Locale.ROOT, "%.1f", value);
   }
 
-  private static String machine() {
+  static String machine() {
     String cpu = "unknown CPU";
     try {
       for (String line : Files.readAllLines(Path.of("/proc/cpuinfo"))) {

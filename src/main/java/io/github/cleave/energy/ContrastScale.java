@@ -23,6 +23,10 @@ public final class ContrastScale {
     int w = features.width();
     int h = features.height();
     int d = features.depth();
+    float[][] channels = new float[features.channelCount()][];
+    for (int c = 0; c < channels.length; c++) {
+      channels[c] = features.channel(c);
+    }
     double sum = 0;
     long pairs = 0;
     for (int k = 0; k < nb.size(); k += 2) {
@@ -35,12 +39,27 @@ public final class ContrastScale {
           int x0 = Math.max(0, -dx);
           int x1 = Math.min(w, w - dx);
           int base = w * (y + h * z);
-          for (int x = x0; x < x1; x++) {
-            int p = base + x;
-            double sq = squaredDifference(features, p, p + step);
-            if (Double.isFinite(sq)) {
-              sum += sq;
-              pairs++;
+          if (channels.length == 1) {
+            float[] v = channels[0];
+            for (int p = base + x0; p < base + x1; p++) {
+              double diff = (double) v[p] - v[p + step];
+              double sq = diff * diff; // equal to 0 + diff², the sum below for one channel
+              if (Double.isFinite(sq)) {
+                sum += sq;
+                pairs++;
+              }
+            }
+          } else {
+            for (int p = base + x0; p < base + x1; p++) {
+              double sq = 0;
+              for (float[] v : channels) {
+                double diff = (double) v[p] - v[p + step];
+                sq += diff * diff;
+              }
+              if (Double.isFinite(sq)) {
+                sum += sq;
+                pairs++;
+              }
             }
           }
         }

@@ -26,9 +26,10 @@ import java.util.Locale;
  *
  * <h2>Cost</h2>
  *
- * Building is O(n · K) for n voxels and K neighbours, with {@code K/2} exponentials per voxel (each
- * unordered pair once); the solver's memory is that of {@link GridMaxFlow} plus two temporary int
- * arrays of n entries during the build. Not thread-safe.
+ * Building is O(n · K) for n voxels and K neighbours, with {@code K/2} boundary weights per voxel
+ * (each unordered pair once, by table look-up where the image allows: see {@code BoundaryArcs});
+ * the solver's memory is that of {@link GridMaxFlow} plus four temporary int arrays of n entries
+ * during the build. Not thread-safe.
  */
 public final class CutProblem {
   private final GridMaxFlow solver;
@@ -79,14 +80,8 @@ public final class CutProblem {
     GridMaxFlow solver =
         new GridMaxFlow(
             features.width(), features.height(), features.depth(), nb, retainCapacities);
-    int[] neighbourSum = new int[n];
-    BoundaryArcs.set(solver, features, parameters, neighbourSum);
-    int maxSum = 0;
-    for (int s : neighbourSum) {
-      maxSum = Math.max(maxSum, s);
-    }
-    int hard = maxSum + 1;
-    int[] source = neighbourSum; // reused: the sums are no longer needed
+    int hard = BoundaryArcs.set(solver, features, parameters) + 1;
+    int[] source = new int[n];
     int[] sink = new int[n];
     byte[] labels = seeds.labels();
     for (int p = 0; p < n; p++) {
