@@ -66,8 +66,9 @@ final class SegmentationOptions {
 
   @Option(
       names = "--channels",
-      paramLabel = "C[,C...]",
+      paramLabel = "C",
       split = ",",
+      splitSynopsisLabel = ",",
       description =
           "Channels (numbered from 1) whose values drive the cut. Default: all three of an RGB"
               + " image, channel 1 otherwise.")
@@ -75,8 +76,9 @@ final class SegmentationOptions {
 
   @Option(
       names = "--measure-channels",
-      paramLabel = "C[,C...]",
+      paramLabel = "C",
       split = ",",
+      splitSynopsisLabel = ",",
       description = "Channels (numbered from 1) measured per object. Default: all channels.")
   int[] measuredChannels;
 
@@ -106,10 +108,11 @@ final class SegmentationOptions {
 
   @Option(
       names = "--pixel-size",
-      paramLabel = "X[,Y[,Z]]",
+      paramLabel = "SIZE",
       split = ",",
+      splitSynopsisLabel = ",",
       description =
-          "Pixel width, height and voxel depth to assume when the image file has no"
+          "Pixel width, height and voxel depth (X[,Y[,Z]]) to assume when the image file has no"
               + " calibration (Y defaults to X, Z to 1); the outputs say it was assumed.")
   double[] pixelSize;
 
