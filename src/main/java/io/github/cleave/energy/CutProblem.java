@@ -29,15 +29,22 @@ import java.util.Locale;
  * Building is O(n · K) for n voxels and K neighbours, with {@code K/2} boundary weights per voxel
  * (each unordered pair once, by table look-up where the image allows: see {@code BoundaryArcs});
  * the solver's memory is that of {@link GridMaxFlow} plus four temporary int arrays of n entries
- * during the build. Not thread-safe.
+ * during the build, and two kept for {@link #changeRegionalCosts}. Not thread-safe.
  */
 public final class CutProblem {
   private final GridMaxFlow solver;
   private final int hardCapacity;
+  private final int[] source; // present capacity source -> p, in node order
+  private final int[] sink; // present capacity p -> sink
+  private final byte[] seedLabels; // the seeds, shared with the caller's SeedLabels
 
-  private CutProblem(GridMaxFlow solver, int hardCapacity) {
+  private CutProblem(
+      GridMaxFlow solver, int hardCapacity, int[] source, int[] sink, byte[] seedLabels) {
     this.solver = solver;
     this.hardCapacity = hardCapacity;
+    this.source = source;
+    this.sink = sink;
+    this.seedLabels = seedLabels;
   }
 
   /**
@@ -98,7 +105,49 @@ public final class CutProblem {
       }
     }
     solver.setTerminalCapacities(source, sink);
-    return new CutProblem(solver, hard);
+    return new CutProblem(solver, hard, source.clone(), sink.clone(), labels);
+  }
+
+  /**
+   * Replaces the regional costs of every voxel that is not a seed, keeping the boundary arcs and
+   * the seeds; after a solve the change is applied to the present flow and search trees, so that
+   * {@link #resolve()} continues from them (dynamic re-solve) instead of building and solving
+   * again. O(n) plus the re-solve.
+   *
+   * @param foregroundCost {@code D_p(fg)} in nats per voxel, finite and ≥ 0
+   * @param backgroundCost {@code D_p(bg)} in nats per voxel, finite and ≥ 0
+   */
+  public void changeRegionalCosts(float[] foregroundCost, float[] backgroundCost) {
+    int n = source.length;
+    if (foregroundCost.length != n || backgroundCost.length != n) {
+      throw new IllegalArgumentException(
+          String.format(
+              Locale.ROOT,
+              "regional costs: %d and %d values for %d voxels",
+              foregroundCost.length,
+              backgroundCost.length,
+              n));
+    }
+    for (int p = 0; p < n; p++) {
+      if (seedLabels[p] == SeedLabels.FOREGROUND || seedLabels[p] == SeedLabels.BACKGROUND) {
+        continue;
+      }
+      int cs = CapacityScale.toCapacity(backgroundCost[p]);
+      int ct = CapacityScale.toCapacity(foregroundCost[p]);
+      if (cs != source[p] || ct != sink[p]) {
+        solver.addTerminalCapacities(p, (long) cs - source[p], (long) ct - sink[p]);
+        source[p] = cs;
+        sink[p] = ct;
+      }
+    }
+  }
+
+  /**
+   * Continues from the flow of the last solve after {@link #changeRegionalCosts}; the result equals
+   * that of a solve from scratch (same flow value, same minimal source set).
+   */
+  public MaxFlowResult resolve() {
+    return solver.resolve();
   }
 
   /** Solves from scratch (or continues after capacity changes, see {@link GridMaxFlow}). */
