@@ -8,6 +8,7 @@ import io.github.cleave.segment.Segmenter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -31,21 +32,9 @@ final class ApplyCommand implements Callable<Integer> {
       description = "Model file.")
   Path model;
 
-  @Option(names = "--image", required = true, paramLabel = "IMAGE", description = "TIFF or PNG.")
-  Path image;
+  @Mixin ImageAndSeedOptions input;
 
-  @Option(
-      names = "--seeds",
-      paramLabel = "SEEDS",
-      description = "Optional seed label image or ROI zip (default: none).")
-  Path seeds;
-
-  @Option(
-      names = "--out",
-      required = true,
-      paramLabel = "FOLDER",
-      description = "Output folder, created if missing; must not be the image's folder.")
-  Path out;
+  @Mixin OutputFolderOption output;
 
   @Spec CommandSpec spec;
 
@@ -53,15 +42,17 @@ final class ApplyCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     SegmentationModel m = ModelFiles.read(model);
     ImageInputs.ImageWithSeeds in =
-        seeds == null
-            ? new ImageInputs.ImageWithSeeds(io.github.cleave.io.ImageFiles.read(image), null, null)
-            : ImageInputs.read(image, seeds, true);
-    SegmentationFiles.Inputs inputs = new SegmentationFiles.Inputs(image, in.seedFile(), model);
-    SegmentationFiles.prepareOutputFolder(out, inputs);
-    Progress.say(spec, "segmenting " + image.getFileName() + " with " + model.getFileName());
+        input.seeds == null
+            ? new ImageInputs.ImageWithSeeds(
+                io.github.cleave.io.ImageFiles.read(input.image), null, null)
+            : ImageInputs.read(input.image, input.seeds, true);
+    SegmentationFiles.Inputs inputs =
+        new SegmentationFiles.Inputs(input.image, in.seedFile(), model);
+    SegmentationFiles.prepareOutputFolder(output.out, inputs);
+    Progress.say(spec, "segmenting " + input.image.getFileName() + " with " + model.getFileName());
     Segmentation result = Segmenter.apply(m, in.image().raster(), in.seeds());
-    String name = SegmentationFiles.baseName(image);
-    SegmentationFiles.write(out, name, in.image(), in.seeds(), result, inputs, "apply");
+    String name = SegmentationFiles.baseName(input.image);
+    SegmentationFiles.write(output.out, name, in.image(), in.seeds(), result, inputs, "apply");
     Summary.print(name, result, spec.commandLine().getOut(), spec.commandLine().getErr());
     return ExitCodes.OK;
   }

@@ -25,15 +25,6 @@ import picocli.CommandLine.Spec;
       "Exit codes: 0 done; 2 bad arguments or unusable input; 130 interrupted."
     })
 final class LearnCommand implements Callable<Integer> {
-  @Option(names = "--image", required = true, paramLabel = "IMAGE", description = "TIFF or PNG.")
-  Path image;
-
-  @Option(
-      names = "--seeds",
-      paramLabel = "SEEDS",
-      description = "Seed label image or ROI zip (default: NAME.seeds.tif|png|zip beside IMAGE).")
-  Path seeds;
-
   @Option(
       names = "--model",
       required = true,
@@ -46,6 +37,8 @@ final class LearnCommand implements Callable<Integer> {
 
   @Mixin SegmentationOptions options;
 
+  @Mixin ImageAndSeedOptions input;
+
   @Spec CommandSpec spec;
 
   @Override
@@ -54,13 +47,13 @@ final class LearnCommand implements Callable<Integer> {
     if (Files.exists(model) && !force) {
       throw new InputException(model + " exists: use --force to replace it");
     }
-    ImageInputs.ImageWithSeeds in = ImageInputs.read(image, seeds, true);
-    for (Path input : new Path[] {image, in.seedFile()}) {
+    ImageInputs.ImageWithSeeds in = ImageInputs.read(input.image, input.seeds, true);
+    for (Path input : new Path[] {input.image, in.seedFile()}) {
       if (Files.exists(model) && Files.isSameFile(model, input)) {
         throw new InputException("--model " + model + " is an input file: choose another name");
       }
     }
-    Progress.say(spec, "learning from " + image.getFileName());
+    Progress.say(spec, "learning from " + input.image.getFileName());
     Segmentation result = Segmenter.segment(in.image().raster(), in.seeds(), settings);
     ModelFiles.write(model, result.model());
     for (String w : result.warnings()) {

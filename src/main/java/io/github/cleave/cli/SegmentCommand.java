@@ -31,22 +31,6 @@ import picocli.CommandLine.Spec;
       "Exit codes: 0 done; 2 bad arguments or unusable input; 130 interrupted."
     })
 final class SegmentCommand implements Callable<Integer> {
-  @Option(names = "--image", required = true, paramLabel = "IMAGE", description = "TIFF or PNG.")
-  Path image;
-
-  @Option(
-      names = "--seeds",
-      paramLabel = "SEEDS",
-      description = "Seed label image or ROI zip (default: NAME.seeds.tif|png|zip beside IMAGE).")
-  Path seeds;
-
-  @Option(
-      names = "--out",
-      required = true,
-      paramLabel = "FOLDER",
-      description = "Output folder, created if missing; must not be the image's folder.")
-  Path out;
-
   @Option(
       names = "--save-model",
       paramLabel = "MODEL.json",
@@ -55,24 +39,29 @@ final class SegmentCommand implements Callable<Integer> {
 
   @Mixin SegmentationOptions options;
 
+  @Mixin ImageAndSeedOptions input;
+
+  @Mixin OutputFolderOption output;
+
   @Spec CommandSpec spec;
 
   @Override
   public Integer call() throws Exception {
     var settings = options.settings();
-    ImageInputs.ImageWithSeeds in = ImageInputs.read(image, seeds, true);
-    SegmentationFiles.Inputs inputs = new SegmentationFiles.Inputs(image, in.seedFile(), null);
-    SegmentationFiles.prepareOutputFolder(out, inputs);
+    ImageInputs.ImageWithSeeds in = ImageInputs.read(input.image, input.seeds, true);
+    SegmentationFiles.Inputs inputs =
+        new SegmentationFiles.Inputs(input.image, in.seedFile(), null);
+    SegmentationFiles.prepareOutputFolder(output.out, inputs);
     if (saveModel != null && Files.exists(saveModel)) {
       throw new InputException(
           "--save-model "
               + saveModel
               + " exists: choose a new file name (a model is never replaced)");
     }
-    Progress.say(spec, "segmenting " + image.getFileName());
+    Progress.say(spec, "segmenting " + input.image.getFileName());
     Segmentation result = Segmenter.segment(in.image().raster(), in.seeds(), settings);
-    String name = SegmentationFiles.baseName(image);
-    SegmentationFiles.write(out, name, in.image(), in.seeds(), result, inputs, "segment");
+    String name = SegmentationFiles.baseName(input.image);
+    SegmentationFiles.write(output.out, name, in.image(), in.seeds(), result, inputs, "segment");
     if (saveModel != null) {
       ModelFiles.write(saveModel, result.model());
     }
