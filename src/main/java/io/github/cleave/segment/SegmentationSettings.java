@@ -9,8 +9,8 @@ import java.util.Locale;
 
 /**
  * Every setting of a segmentation, with the defaults a microscopist can start from. Immutable; the
- * {@code with...} methods return changed copies. Channel numbers are 0-based here (the command line
- * and the plugin show them 1-based).
+ * {@code with...} methods return changed copies, {@link #toBuilder()} changes several at once.
+ * Channel numbers are 0-based here (the command line and the plugin show them 1-based).
  *
  * @param boundaryPenalty λ ≥ 0, the weight of the boundary term: larger gives smoother, shorter
  *     boundaries (default {@value #DEFAULT_BOUNDARY_PENALTY})
@@ -102,180 +102,163 @@ public record SegmentationSettings(
         ObjectSettings.DEFAULT);
   }
 
+  /** A builder holding these settings, to change several at once. */
+  public Builder toBuilder() {
+    return new Builder(this);
+  }
+
   public SegmentationSettings withBoundaryPenalty(double lambda) {
-    return new SegmentationSettings(
-        lambda,
-        contrastScale,
-        neighborhood,
-        modelKind,
-        refinementRounds,
-        drivingChannels,
-        measuredChannels,
-        illumination,
-        flattenRadius,
-        perPlane,
-        assumedVoxelSize,
-        objects);
+    return toBuilder().boundaryPenalty(lambda).build();
   }
 
   public SegmentationSettings withRefinementRounds(int rounds) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        contrastScale,
-        neighborhood,
-        modelKind,
-        rounds,
-        drivingChannels,
-        measuredChannels,
-        illumination,
-        flattenRadius,
-        perPlane,
-        assumedVoxelSize,
-        objects);
+    return toBuilder().refinementRounds(rounds).build();
   }
 
   public SegmentationSettings withContrastScale(double sigma) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        sigma,
-        neighborhood,
-        modelKind,
-        refinementRounds,
-        drivingChannels,
-        measuredChannels,
-        illumination,
-        flattenRadius,
-        perPlane,
-        assumedVoxelSize,
-        objects);
+    return toBuilder().contrastScale(sigma).build();
   }
 
   public SegmentationSettings withNeighborhood(int n) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        contrastScale,
-        n,
-        modelKind,
-        refinementRounds,
-        drivingChannels,
-        measuredChannels,
-        illumination,
-        flattenRadius,
-        perPlane,
-        assumedVoxelSize,
-        objects);
+    return toBuilder().neighborhood(n).build();
   }
 
   public SegmentationSettings withModelKind(ModelKind kind) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        contrastScale,
-        neighborhood,
-        kind,
-        refinementRounds,
-        drivingChannels,
-        measuredChannels,
-        illumination,
-        flattenRadius,
-        perPlane,
-        assumedVoxelSize,
-        objects);
+    return toBuilder().modelKind(kind).build();
   }
 
   public SegmentationSettings withDrivingChannels(int[] channels) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        contrastScale,
-        neighborhood,
-        modelKind,
-        refinementRounds,
-        channels,
-        measuredChannels,
-        illumination,
-        flattenRadius,
-        perPlane,
-        assumedVoxelSize,
-        objects);
+    return toBuilder().drivingChannels(channels).build();
   }
 
   public SegmentationSettings withMeasuredChannels(int[] channels) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        contrastScale,
-        neighborhood,
-        modelKind,
-        refinementRounds,
-        drivingChannels,
-        channels,
-        illumination,
-        flattenRadius,
-        perPlane,
-        assumedVoxelSize,
-        objects);
+    return toBuilder().measuredChannels(channels).build();
   }
 
   public SegmentationSettings withIllumination(IlluminationMode mode, double radius) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        contrastScale,
-        neighborhood,
-        modelKind,
-        refinementRounds,
-        drivingChannels,
-        measuredChannels,
-        mode,
-        radius,
-        perPlane,
-        assumedVoxelSize,
-        objects);
+    return toBuilder().illumination(mode).flattenRadius(radius).build();
   }
 
   public SegmentationSettings withPerPlane(boolean planes) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        contrastScale,
-        neighborhood,
-        modelKind,
-        refinementRounds,
-        drivingChannels,
-        measuredChannels,
-        illumination,
-        flattenRadius,
-        planes,
-        assumedVoxelSize,
-        objects);
+    return toBuilder().perPlane(planes).build();
   }
 
   public SegmentationSettings withAssumedVoxelSize(VoxelSize size) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        contrastScale,
-        neighborhood,
-        modelKind,
-        refinementRounds,
-        drivingChannels,
-        measuredChannels,
-        illumination,
-        flattenRadius,
-        perPlane,
-        size,
-        objects);
+    return toBuilder().assumedVoxelSize(size).build();
   }
 
   public SegmentationSettings withObjects(ObjectSettings o) {
-    return new SegmentationSettings(
-        boundaryPenalty,
-        contrastScale,
-        neighborhood,
-        modelKind,
-        refinementRounds,
-        drivingChannels,
-        measuredChannels,
-        illumination,
-        flattenRadius,
-        perPlane,
-        assumedVoxelSize,
-        o);
+    return toBuilder().objects(o).build();
+  }
+
+  /** Mutable holder of settings; {@link #build()} checks them. Not thread-safe. */
+  public static final class Builder {
+    private double boundaryPenalty;
+    private double contrastScale;
+    private int neighborhood;
+    private ModelKind modelKind;
+    private int refinementRounds;
+    private int[] drivingChannels;
+    private int[] measuredChannels;
+    private IlluminationMode illumination;
+    private double flattenRadius;
+    private boolean perPlane;
+    private VoxelSize assumedVoxelSize;
+    private ObjectSettings objects;
+
+    private Builder(SegmentationSettings s) {
+      boundaryPenalty = s.boundaryPenalty;
+      contrastScale = s.contrastScale;
+      neighborhood = s.neighborhood;
+      modelKind = s.modelKind;
+      refinementRounds = s.refinementRounds;
+      drivingChannels = s.drivingChannels;
+      measuredChannels = s.measuredChannels;
+      illumination = s.illumination;
+      flattenRadius = s.flattenRadius;
+      perPlane = s.perPlane;
+      assumedVoxelSize = s.assumedVoxelSize;
+      objects = s.objects;
+    }
+
+    public Builder boundaryPenalty(double v) {
+      boundaryPenalty = v;
+      return this;
+    }
+
+    public Builder contrastScale(double v) {
+      contrastScale = v;
+      return this;
+    }
+
+    public Builder neighborhood(int v) {
+      neighborhood = v;
+      return this;
+    }
+
+    public Builder modelKind(ModelKind v) {
+      modelKind = v;
+      return this;
+    }
+
+    public Builder refinementRounds(int v) {
+      refinementRounds = v;
+      return this;
+    }
+
+    public Builder drivingChannels(int[] v) {
+      drivingChannels = v;
+      return this;
+    }
+
+    public Builder measuredChannels(int[] v) {
+      measuredChannels = v;
+      return this;
+    }
+
+    public Builder illumination(IlluminationMode v) {
+      illumination = v;
+      return this;
+    }
+
+    public Builder flattenRadius(double v) {
+      flattenRadius = v;
+      return this;
+    }
+
+    public Builder perPlane(boolean v) {
+      perPlane = v;
+      return this;
+    }
+
+    public Builder assumedVoxelSize(VoxelSize v) {
+      assumedVoxelSize = v;
+      return this;
+    }
+
+    public Builder objects(ObjectSettings v) {
+      objects = v;
+      return this;
+    }
+
+    /**
+     * @throws IllegalArgumentException naming the value and what is accepted
+     */
+    public SegmentationSettings build() {
+      return new SegmentationSettings(
+          boundaryPenalty,
+          contrastScale,
+          neighborhood,
+          modelKind,
+          refinementRounds,
+          drivingChannels,
+          measuredChannels,
+          illumination,
+          flattenRadius,
+          perPlane,
+          assumedVoxelSize,
+          objects);
+    }
   }
 
   /** A copy of the driving channels, or null. */
