@@ -9,7 +9,8 @@ import java.util.List;
  * The result of one segmentation, the same whichever front door asked for it. Immutable by
  * convention: the mask array is shared, do not modify it.
  *
- * @param mask the binary cut, 255 foreground / 0 background, in the image's voxel order
+ * @param mask the foreground, 255 / 0 in the image's voxel order: the union of the kept objects
+ *     (the cut without specks, holes filled, filtered objects removed; see {@code MaskCleaning})
  * @param objects the object label image made from the mask (split, filtered, numbered)
  * @param measurements one entry per object, in object-number order
  * @param energy the minimum energy in nats (the flow value over {@link

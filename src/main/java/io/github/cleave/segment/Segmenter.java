@@ -34,8 +34,10 @@ import java.util.concurrent.CancellationException;
  *       them from a saved {@link SegmentationModel}.
  *   <li>Build the grid graph of the energy ({@link CutProblem}) and cut it with the grid max-flow
  *       engine; the source side is the foreground mask.
- *   <li>Form objects from the mask (holes, splitting of touching objects, size and edge filters)
- *       and measure them on the raw values of the measured channels, in calibrated units.
+ *   <li>Drop specks from the mask ({@link MaskCleaning}), form objects from it (holes, splitting of
+ *       touching objects, size and edge filters) and measure them on the raw values of the measured
+ *       channels, in calibrated units. The mask returned is the union of the kept objects; the
+ *       energy is that of the cut before this step.
  * </ol>
  *
  * <p>Stateless and thread-safe: separate calls may run in parallel. A call whose thread is
@@ -143,14 +145,15 @@ public final class Segmenter {
       Illumination.Flattening f =
           Illumination.flatten(features, seeds, resolved.flattenRadius(), light);
       if (resolved.illumination() == IlluminationMode.AUTO) {
-        flatten = Illumination.isStrongGradient(f.trendStrength());
+        flatten = Illumination.shouldFlatten(f);
         warnings.add(
             String.format(
                 Locale.ROOT,
-                "illumination %s: trend strength %s (flattened from %s)",
+                "illumination %s: trend strength %s (flattened from %s%s)",
                 flatten ? "flattened" : "left as it is",
                 formatStrengths(f.trendStrength()),
-                Illumination.STRONG_GRADIENT));
+                Illumination.STRONG_GRADIENT,
+                light ? ", never on a light background" : ""));
       }
       if (flatten) {
         features = f.flattened();
@@ -204,9 +207,16 @@ public final class Segmenter {
     CutOutcome cut = refined.cut();
     SegmentationModel finalModel = model.withLikelihood(refined.likelihood());
     long start = System.nanoTime();
+    byte[] cleaned =
+        MaskCleaning.withoutSpecks(
+            cut.mask,
+            image.width(),
+            image.height(),
+            image.depth(),
+            SegmentationSettings.SPECK_VOXELS);
     ObjectLabels objects =
         ObjectPipeline.run(
-            cut.mask,
+            cleaned,
             image.width(),
             image.height(),
             image.depth(),
@@ -220,7 +230,7 @@ public final class Segmenter {
             objects, image.voxelSize(), image, measuredChannels(image, settings));
     double measureMs = millisSince(start);
     return new Segmentation(
-        cut.mask,
+        MaskCleaning.union(objects),
         objects,
         measurements,
         CapacityScale.toNats(cut.flow),
