@@ -23,7 +23,9 @@ import java.util.Arrays;
  * {@value #STRONG_GRADIENT} is said to show a strong gradient: the illumination alone then changes
  * a pixel's value by more than a fifth of the difference between object and background, enough to
  * move a global likelihood across the boundary (threshold: common practice, no source). The
- * background is light when the background seeds are brighter than the foreground seeds.
+ * background is light when the background seeds are brighter than the foreground seeds. AUTO also
+ * refuses a flattening that lost more than half of the seed contrast ({@link #KEPT_CONTRAST}): then
+ * the objects are larger than the ball, and a larger radius is needed.
  *
  * <p>AUTO never flattens an image with a light background (transmitted light, stained sections):
  * there the rolling ball follows the texture of the tissue (fibres, stroma) as much as the
@@ -37,13 +39,33 @@ import java.util.Arrays;
  * of a few filters per plane. Thread-safe (no shared state).
  */
 public final class Illumination {
+  /**
+   * Share of the seed contrast that flattening must keep on every channel for AUTO to use it: a
+   * rolling ball smaller than the objects takes the objects for background and flattens them away,
+   * which shows as the foreground seeds coming down to the level of the background seeds (our rule,
+   * no source).
+   */
+  public static final double KEPT_CONTRAST = 0.5;
+
   /** Trend strength from which AUTO flattens. */
   public static final double STRONG_GRADIENT = 0.2;
 
   private Illumination() {}
 
   /** The result of estimating the background: the flattened features and the decision data. */
-  public record Flattening(Raster flattened, double[] trendStrength, boolean lightBackground) {}
+  public record Flattening(
+      Raster flattened, double[] trendStrength, double[] contrastKept, boolean lightBackground) {
+
+    /** True when every channel kept at least {@link #KEPT_CONTRAST} of its seed contrast. */
+    public boolean keepsObjects() {
+      for (double k : contrastKept) {
+        if (k < KEPT_CONTRAST) {
+          return false;
+        }
+      }
+      return true;
+    }
+  }
 
   /**
    * Estimates the rolling-ball background of every channel of {@code features} and returns the
@@ -60,6 +82,7 @@ public final class Illumination {
     int plane = w * h;
     float[][] out = new float[features.channelCount()][];
     double[] strength = new double[features.channelCount()];
+    double[] kept = new double[features.channelCount()];
     for (int c = 0; c < features.channelCount(); c++) {
       float[] values = features.channel(c);
       float[] background = new float[values.length];
@@ -81,10 +104,11 @@ public final class Illumination {
       }
       out[c] = flat;
       strength[c] = trendStrength(values, background, seeds);
+      kept[c] = seedContrast(flat, seeds) / seedContrast(values, seeds);
     }
     Raster flattened =
         new Raster(w, h, features.depth(), out, features.voxelSize(), features.kind());
-    return new Flattening(flattened, strength, lightBackground);
+    return new Flattening(flattened, strength, kept, lightBackground);
   }
 
   /**
@@ -92,7 +116,14 @@ public final class Illumination {
    * {@link #STRONG_GRADIENT} (see the class comment for why light backgrounds are left alone).
    */
   public static boolean shouldFlatten(Flattening f) {
-    return !f.lightBackground() && isStrongGradient(f.trendStrength());
+    return !f.lightBackground() && isStrongGradient(f.trendStrength()) && f.keepsObjects();
+  }
+
+  /** |median over foreground seeds − median over background seeds|; NaN without both. */
+  private static double seedContrast(float[] values, SeedLabels seeds) {
+    return Math.abs(
+        median(values, seeds, SeedLabels.FOREGROUND)
+            - median(values, seeds, SeedLabels.BACKGROUND));
   }
 
   /** True when some channel's trend strength reaches {@link #STRONG_GRADIENT}. */
@@ -112,10 +143,7 @@ public final class Illumination {
   }
 
   private static double trendStrength(float[] values, float[] background, SeedLabels seeds) {
-    double contrast =
-        Math.abs(
-            median(values, seeds, SeedLabels.FOREGROUND)
-                - median(values, seeds, SeedLabels.BACKGROUND));
+    double contrast = seedContrast(values, seeds);
     float[] sorted = background.clone();
     Arrays.sort(sorted);
     double spread =

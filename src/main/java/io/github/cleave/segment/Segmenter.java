@@ -149,11 +149,19 @@ public final class Segmenter {
         warnings.add(
             String.format(
                 Locale.ROOT,
-                "illumination %s: trend strength %s (flattened from %s%s)",
+                "illumination %s: trend strength %s (flattened from %s%s)%s",
                 flatten ? "flattened" : "left as it is",
                 formatStrengths(f.trendStrength()),
                 Illumination.STRONG_GRADIENT,
-                light ? ", never on a light background" : ""));
+                light ? ", never on a light background" : "",
+                f.keepsObjects()
+                    ? ""
+                    : "; flattening would remove the objects themselves: if the illumination is"
+                        + " uneven, use a --flatten-radius larger than the largest object"));
+      } else if (!f.keepsObjects()) {
+        warnings.add(
+            "flattening removed more than half of the contrast between the seeds: the objects"
+                + " are larger than the flattening radius; choose a larger radius");
       }
       if (flatten) {
         features = f.flattened();
