@@ -17,7 +17,7 @@ import java.util.Arrays;
  * nuclei of an unevenly stained field; re-learning from the first cut widens the class models to
  * everything the cut found, which lets the next cut take in the dimmer objects the strokes missed.
  * Voxels near the cut are left out of the re-learning ({@link #BAND}). Each round costs one model
- * fit and one cut.
+ * fit and one re-solve of the same graph with new terminal capacities ({@link VolumeCut}).
  *
  * <p><b>Class priors.</b> From the second cut on, the regional costs are negative log posteriors
  * rather than likelihoods: each class's cost gets {@code −ln π_c}, π_c its share of the voxels in
@@ -63,6 +63,7 @@ final class RefinedCut {
     double buildMs = 0;
     double solveMs = 0;
     Segmenter.CutOutcome cut = null;
+    VolumeCut volume = new VolumeCut(features, seeds, parameters); // keeps its graph across rounds
     int round = 0;
     while (true) {
       long start = System.nanoTime();
@@ -74,7 +75,7 @@ final class RefinedCut {
       Segmenter.CutOutcome next =
           perPlane && features.depth() > 1
               ? PlaneCuts.cutEachPlane(features, costs, seeds, parameters)
-              : Segmenter.cutVolume(features, costs, seeds, parameters);
+              : volume.cut(costs);
       buildMs += next.buildMs();
       solveMs += next.solveMs();
       boolean unchanged = cut != null && Arrays.equals(cut.mask(), next.mask());

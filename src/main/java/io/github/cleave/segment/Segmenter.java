@@ -4,9 +4,7 @@ import io.github.cleave.energy.CapacityScale;
 import io.github.cleave.energy.ContrastScale;
 import io.github.cleave.energy.CutProblem;
 import io.github.cleave.energy.EnergyParameters;
-import io.github.cleave.flow.MaxFlowResult;
 import io.github.cleave.flow.Neighborhood;
-import io.github.cleave.flow.SolveStatus;
 import io.github.cleave.image.BadInputException;
 import io.github.cleave.image.PixelKind;
 import io.github.cleave.image.Raster;
@@ -261,16 +259,7 @@ public final class Segmenter {
 
   static CutOutcome cutVolume(
       Raster features, float[][] costs, SeedLabels seeds, EnergyParameters parameters) {
-    long start = System.nanoTime();
-    CutProblem problem =
-        CutProblem.build(features, costs[0], costs[1], seeds, parameters, assertionsEnabled());
-    double buildMs = millisSince(start);
-    MaxFlowResult result = problem.solve();
-    if (result.status() == SolveStatus.INTERRUPTED) {
-      throw new CancellationException("segmentation interrupted");
-    }
-    return new CutOutcome(
-        CutProblem.mask(result), result.flowValue(), buildMs, result.solveNanos() / 1e6);
+    return new VolumeCut(features, seeds, parameters).cut(costs);
   }
 
   private static SeedLabels checkSeeds(Raster image, SeedLabels seeds) {
@@ -403,7 +392,7 @@ public final class Segmenter {
   }
 
   @SuppressWarnings("AssertWithSideEffects")
-  private static boolean assertionsEnabled() {
+  static boolean assertionsEnabled() {
     boolean on = false;
     assert on = true;
     return on;
