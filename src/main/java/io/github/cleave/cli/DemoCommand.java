@@ -94,7 +94,7 @@ final class DemoCommand implements Callable<Integer> {
                     SegmentationFiles.displayChannels(raster, result),
                     null,
                     result.mask(),
-                    null,
+                    result.objects().labels(),
                     in.seeds()),
                 result.objects().count(),
                 dice));

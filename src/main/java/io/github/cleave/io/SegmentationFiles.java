@@ -116,7 +116,12 @@ public final class SegmentationFiles {
     ImageOutputs.writePng(
         overlay,
         OverlayPicture.render(
-            raster, displayChannels(raster, result), null, result.mask(), null, seeds));
+            raster,
+            displayChannels(raster, result),
+            null,
+            result.mask(),
+            result.objects().labels(),
+            seeds));
     byte[] json = RunRecord.json(name, image, inputs, result, command);
     AtomicFiles.write(record, out -> out.write(json));
   }
