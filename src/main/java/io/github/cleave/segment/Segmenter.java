@@ -213,11 +213,13 @@ public final class Segmenter {
             settings.perPlane(),
             parameters);
     CutOutcome cut = refined.cut();
+    CutOutcome edges =
+        EdgeRefinement.refine(features, cut.mask, seeds, parameters, settings.perPlane());
     SegmentationModel finalModel = model.withLikelihood(refined.likelihood());
     long start = System.nanoTime();
     byte[] cleaned =
         MaskCleaning.withoutSpecks(
-            cut.mask,
+            edges.mask,
             image.width(),
             image.height(),
             image.depth(),
@@ -249,8 +251,8 @@ public final class Segmenter {
             flattenMs,
             learnMs + refined.learnMs(),
             refined.costsMs(),
-            cut.buildMs,
-            cut.solveMs,
+            cut.buildMs + edges.buildMs,
+            cut.solveMs + edges.solveMs,
             objectsMs,
             measureMs),
         warnings);
