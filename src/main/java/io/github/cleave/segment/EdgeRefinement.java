@@ -3,7 +3,6 @@ package io.github.cleave.segment;
 import io.github.cleave.energy.EnergyParameters;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
-import io.github.cleave.objects.ConnectedComponents;
 
 /**
  * Places the edges of a finished cut at half maximum: one more cut in a thin band around the cut's
@@ -43,8 +42,10 @@ final class EdgeRefinement {
   /** Width of the background ring beyond the band, in pixel widths (our choice, no source). */
   static final int RING = 3;
 
-  /** Fewest voxels in an object's interior and in its ring for its own model. */
-  static final int MIN_SAMPLES = 8;
+  /** Half-width of the window of the local levels, in pixel widths (our choice, no source). */
+  static final int WINDOW = 2;
+
+  static float[] debugT, debugO, debugB;
 
   private EdgeRefinement() {}
 
@@ -63,39 +64,103 @@ final class EdgeRefinement {
     int d = features.depth();
     int n = mask.length;
     boolean planes = perPlane && d > 1;
-    int bandZ = zReach(BAND, features, planes);
-    int outerZ = zReach(BAND + RING, features, planes);
+    int B = Integer.getInteger("edge.band", BAND);
+    int R = Integer.getInteger("edge.ring", RING);
+    int W = Integer.getInteger("edge.window", WINDOW);
+    int bandZ = zReach(B, features, planes);
+    int outerZ = zReach(B + R, features, planes) + Integer.getInteger("edge.ringz", 0);
+    int windowZ = zReach(W, features, planes);
     boolean[] boundary = boundary(mask, w, h, d, planes);
-    boolean[] band = dilate(boundary, w, h, d, BAND, bandZ);
-    boolean[] outer = dilate(boundary, w, h, d, BAND + RING, outerZ);
-    int[] object = ConnectedComponents.of(mask, w, h, d).labels().clone();
-    int count = 0;
-    for (int k : object) {
-      count = Math.max(count, k);
+    boolean[] band = dilate(boundary, w, h, d, B, bandZ);
+    boolean[] outer = dilate(boundary, w, h, d, B + R, outerZ);
+    double lf = Double.parseDouble(System.getProperty("edge.lambda", "1"));
+    parameters =
+        new EnergyParameters(
+            parameters.boundaryPenalty() * lf,
+            parameters.contrastScale(),
+            parameters.neighborhood(),
+            parameters.voxelSize());
+    double frac = Double.parseDouble(System.getProperty("edge.frac", "0.5"));
+    float[] inside = new float[n];
+    float[] ring = new float[n];
+    for (int p = 0; p < n; p++) {
+      if (!band[p]) {
+        if (mask[p] != 0) {
+          inside[p] = 1;
+        } else if (outer[p]) {
+          ring[p] = 1;
+        }
+      }
     }
-    nearestObject(object, outer, w, h, d, planes);
-    Levels levels = Levels.measure(features, mask, band, outer, object, count);
+    BoxSums box = new BoxSums(w, h, d, W, W, windowZ);
+    float[] insideCount = box.sum(inside, null);
+    float[] ringCount = box.sum(ring, null);
+    int[] objectSource = nearest(inside, band, w, h, d, planes);
+    int[] backgroundSource = nearest(ring, band, w, h, d, planes);
+    int channels = features.channelCount();
+    float[][] objectLevel = new float[channels][];
+    float[][] backgroundLevel = new float[channels][];
+    double[] variance = new double[channels];
+    for (int c = 0; c < channels; c++) {
+      float[] v = features.channel(c);
+      objectLevel[c] = box.sum(v, inside);
+      backgroundLevel[c] = box.sum(v, ring);
+      double ss = 0;
+      long m = 0;
+      for (int p = 0; p < n; p++) {
+        if (inside[p] != 0) {
+          objectLevel[c][p] /= insideCount[p];
+          double e = v[p] - objectLevel[c][p];
+          ss += e * e;
+          m++;
+        } else if (ring[p] != 0) {
+          backgroundLevel[c][p] /= ringCount[p];
+          double e = v[p] - backgroundLevel[c][p];
+          ss += e * e;
+          m++;
+        }
+      }
+      variance[c] = m > 0 ? ss / m : 0;
+    }
+    if (System.getProperty("edge.debug") != null) {
+      debugT = new float[n];
+      debugO = new float[n];
+      debugB = new float[n];
+      java.util.Arrays.fill(debugT, Float.NaN);
+    }
     float[][] costs = new float[2][n];
     byte[] hard = seeds.labels().clone();
     for (int p = 0; p < n; p++) {
-      int k = object[p];
-      boolean free = band[p] && k > 0 && levels.usable(k);
       if (hard[p] != 0) {
         continue;
+      }
+      int so = objectSource[p];
+      int sb = backgroundSource[p];
+      boolean free = band[p] && so >= 0 && sb >= 0;
+      double fg = 0;
+      double bg = 0;
+      for (int c = 0; c < channels && free; c++) {
+        if (!(variance[c] > 0)) {
+          free = false;
+          break;
+        }
+        double v = features.channel(c)[p];
+        double mo = objectLevel[c][so];
+        double mb = backgroundLevel[c][sb];
+        double shift = (frac - 0.5) * (mo - mb);
+        double a = v - mo - shift;
+        double b = v - mb - shift;
+        fg += a * a / (2 * variance[c]);
+        bg += b * b / (2 * variance[c]);
       }
       if (!free) {
         hard[p] = (byte) (mask[p] != 0 ? SeedLabels.FOREGROUND : SeedLabels.BACKGROUND);
         continue;
       }
-      double fg = 0;
-      double bg = 0;
-      for (int c = 0; c < features.channelCount(); c++) {
-        double v = features.channel(c)[p];
-        double s2 = 2 * levels.variance[c][k];
-        double a = v - levels.object[c][k];
-        double b = v - levels.background[c][k];
-        fg += a * a / s2;
-        bg += b * b / s2;
+      if (debugT != null) {
+        float[] v0 = features.channel(0);
+        debugT[p] =
+            (v0[p] - backgroundLevel[0][sb]) / (objectLevel[0][so] - backgroundLevel[0][sb]);
       }
       double min = Math.min(fg, bg);
       costs[0][p] = (float) (fg - min);
@@ -189,17 +254,20 @@ final class EdgeRefinement {
   }
 
   /**
-   * Gives every unlabelled voxel of {@code region} the label of the nearest object reachable
-   * through {@code region} (breadth-first, axial steps, ties to the object reached first).
+   * For every voxel of {@code band}, the nearest voxel with a nonzero {@code source} value reached
+   * through the band (breadth-first, axial steps, ties to the one reached first); -1 elsewhere.
    */
-  private static void nearestObject(
-      int[] object, boolean[] region, int w, int h, int d, boolean planes) {
-    int n = object.length;
+  private static int[] nearest(
+      float[] source, boolean[] band, int w, int h, int d, boolean planes) {
+    int n = source.length;
     int plane = w * h;
+    int[] from = new int[n];
+    java.util.Arrays.fill(from, -1);
     int[] queue = new int[n];
     int tail = 0;
     for (int p = 0; p < n; p++) {
-      if (object[p] != 0) {
+      if (source[p] != 0) {
+        from[p] = p;
         queue[tail++] = p;
       }
     }
@@ -217,95 +285,17 @@ final class EdgeRefinement {
         !planes && z < d - 1 ? p + plane : -1
       };
       for (int q : around) {
-        if (q >= 0 && object[q] == 0 && region[q]) {
-          object[q] = object[p];
+        if (q >= 0 && from[q] < 0 && band[q]) {
+          from[q] = from[p];
           queue[tail++] = q;
         }
       }
     }
-  }
-
-  /** Per object and channel: object level, background level, pooled variance. */
-  private static final class Levels {
-    final double[][] object;
-    final double[][] background;
-    final double[][] variance;
-    final long[] inside;
-    final long[] ring;
-
-    private Levels(int channels, int count) {
-      object = new double[channels][count + 1];
-      background = new double[channels][count + 1];
-      variance = new double[channels][count + 1];
-      inside = new long[count + 1];
-      ring = new long[count + 1];
+    for (int p = 0; p < n; p++) {
+      if (!band[p]) {
+        from[p] = -1;
+      }
     }
-
-    boolean usable(int k) {
-      if (inside[k] < MIN_SAMPLES || ring[k] < MIN_SAMPLES) {
-        return false;
-      }
-      for (double[] v : variance) {
-        if (!(v[k] > 0)) {
-          return false;
-        }
-      }
-      return true;
-    }
-
-    static Levels measure(
-        Raster features, byte[] mask, boolean[] band, boolean[] outer, int[] object, int count) {
-      int channels = features.channelCount();
-      Levels l = new Levels(channels, count);
-      int n = mask.length;
-      for (int p = 0; p < n; p++) {
-        int k = object[p];
-        if (k == 0) {
-          continue;
-        }
-        if (mask[p] != 0 && !band[p]) {
-          l.inside[k]++;
-        } else if (mask[p] == 0 && outer[p] && !band[p]) {
-          l.ring[k]++;
-        }
-      }
-      for (int c = 0; c < channels; c++) {
-        float[] v = features.channel(c);
-        double[] so = new double[count + 1];
-        double[] sb = new double[count + 1];
-        for (int p = 0; p < n; p++) {
-          int k = object[p];
-          if (k != 0 && !band[p]) {
-            if (mask[p] != 0) {
-              so[k] += v[p];
-            } else if (outer[p]) {
-              sb[k] += v[p];
-            }
-          }
-        }
-        for (int k = 1; k <= count; k++) {
-          l.object[c][k] = l.inside[k] > 0 ? so[k] / l.inside[k] : 0;
-          l.background[c][k] = l.ring[k] > 0 ? sb[k] / l.ring[k] : 0;
-        }
-        double[] ss = new double[count + 1];
-        for (int p = 0; p < n; p++) {
-          int k = object[p];
-          if (k != 0 && !band[p]) {
-            if (mask[p] != 0) {
-              double e = v[p] - l.object[c][k];
-              ss[k] += e * e;
-            } else if (outer[p]) {
-              double e = v[p] - l.background[c][k];
-              ss[k] += e * e;
-            }
-          }
-        }
-        for (int k = 1; k <= count; k++) {
-          long m = l.inside[k] + l.ring[k];
-          l.variance[c][k] = m > 2 ? ss[k] / (m - 2) : 0;
-        }
-      }
-      return l;
-    }
+    return from;
   }
 }
