@@ -3,41 +3,58 @@ package io.github.cleave.segment;
 import io.github.cleave.energy.EnergyParameters;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
+import java.util.Arrays;
 
 /**
  * Places the edges of a finished cut at half maximum: one more cut in a thin band around the cut's
- * boundary, with regional costs from a two-class model of each object's own level and the level of
- * the background right around it.
+ * boundary, with regional costs from a two-class model of the object level and the background level
+ * right at each edge.
  *
  * <p><b>Why.</b> The likelihoods learned from the whole image describe a narrow background class
  * and a broad object class (objects differ in brightness, and their texture widens the class).
- * Where a blurred edge passes from one to the other, the two likelihoods cross well outside the
- * middle of the edge, so the cut takes in about one voxel of halo all round; the contrast term
- * cannot help, since a blurred edge has no strong step between neighbours anywhere across it. The
- * edge of an object blurred by a symmetric point-spread function passes through the middle between
- * the object level and the background level (the half-maximum edge: common practice in microscopy,
- * no source), and that is where a two-class Gaussian model with one shared variance and equal
- * priors puts its decision boundary (R. O. Duda, P. E. Hart and D. G. Stork, <i>Pattern
+ * Where a blurred edge passes from one to the other, the two likelihoods cross outside the middle
+ * of the edge, so the cut takes in about one voxel of halo all round; the contrast term cannot
+ * help, since a blurred edge has no strong step between neighbours anywhere across it. The edge of
+ * an object blurred by a symmetric point-spread function passes through the middle between the
+ * object level and the background level (the half-maximum edge: common practice in microscopy, no
+ * source), and that is where a two-class Gaussian model with one shared variance and equal priors
+ * puts its decision boundary (R. O. Duda, P. E. Hart and D. G. Stork, <i>Pattern
  * Classification</i>, 2nd ed., Wiley 2001, ch. 2, from memory).
  *
- * <p><b>Method.</b> The cut's boundary voxels (those with an axial neighbour of the other class)
- * are dilated by {@link #BAND} pixel widths in x and y and by the same physical distance in z, at
- * least one plane (none when the planes are cut one by one): the band. Each connected object of the
- * cut gets its own model: the object level is the mean of its voxels outside the band, the
- * background level the mean of the background voxels in a ring {@link #RING} widths beyond the band
- * that are nearer to this object than to any other (geodesic nearest object); the variance, per
- * channel, is the pooled variance of both samples. In the band, {@code D_p(c) = Σ_channels (I_p −
- * μ_c)² / 2s²}, minus the smaller of the two (only differences matter); outside it the labels of
- * the cut are hard constraints, and so are the seeds. Objects without voxels outside the band or
- * without a ring keep their cut. The cut is then made once more with the same boundary term ({@code
- * CutProblem}), so the new edges stay smooth.
+ * <p><b>Method.</b>
  *
- * <p>Cost: O(n · (BAND + RING)) for the band and ring, plus one build and solve of the grid graph.
- * Stateless and thread-safe.
+ * <ol>
+ *   <li>Band: the cut's boundary voxels (those with an axial neighbour of the other class, on both
+ *       sides) dilated by {@link #BAND} pixel widths in the plane and by the same physical distance
+ *       along z, at least one plane (none when the planes are cut one by one). Ring: the background
+ *       voxels within {@link #RING} further widths beyond the band. Interior: the foreground voxels
+ *       outside the band.
+ *   <li>Local levels: at each interior voxel the mean of the interior voxels in a window of ±{@link
+ *       #WINDOW} widths, at each ring voxel the mean of the ring voxels likewise (a normalised
+ *       convolution: H. Knutsson and C.-F. Westin, "Normalized and differential convolution", CVPR
+ *       1993, doi:10.1109/CVPR.1993.341081). A band voxel takes the object level of the nearest
+ *       interior voxel and the background level of the nearest ring voxel, both reached through the
+ *       band (breadth-first, axial steps), so each edge is judged against its own object, even
+ *       where a dim and a bright object touch.
+ *   <li>Shared variance s², per channel: the mean squared deviation of the interior and ring voxels
+ *       from their local levels.
+ *   <li>Costs in the band: {@code D_p(c) = Σ_channels (I_p − μ_c)² / 2s²}, minus the smaller of the
+ *       two (only the difference matters). Outside the band, and in band voxels that reach no
+ *       interior or no ring voxel, the labels of the cut are hard constraints, and so are the
+ *       seeds. The cut is made once more with the same boundary term ({@code CutProblem}), so the
+ *       new edges stay smooth.
+ * </ol>
+ *
+ * <p>Invariants: only band voxels can change; seeds keep their labels. Cost: O(n · (BAND + RING +
+ * WINDOW)) for the band, levels and searches, plus one build and solve of the grid graph. Memory:
+ * about ten arrays of n ints or floats. Stateless and thread-safe.
  */
 final class EdgeRefinement {
-  /** Half-width of the band re-decided, in pixel widths (our choice, no source). */
-  static final int BAND = 3;
+  /**
+   * Half-width of the band re-decided, in pixel widths: it covers the halo of about one voxel plus
+   * the width of a typical point-spread function, σ of 1 to 1.5 pixels (our choice, no source).
+   */
+  static final int BAND = 2;
 
   /** Width of the background ring beyond the band, in pixel widths (our choice, no source). */
   static final int RING = 3;
@@ -45,13 +62,17 @@ final class EdgeRefinement {
   /** Half-width of the window of the local levels, in pixel widths (our choice, no source). */
   static final int WINDOW = 2;
 
-  static float[] debugT, debugO, debugB;
-
   private EdgeRefinement() {}
 
   /**
-   * The cut with its edges re-decided; the flow of the returned outcome is that of the edge cut
-   * (hard constraints outside the band contribute nothing to it).
+   * The cut with its edges re-decided. The flow of the returned outcome is that of the edge cut
+   * alone (the hard constraints outside the band contribute nothing to it).
+   *
+   * @param features the driving channels, as cut
+   * @param mask the cut, 255 foreground, 0 background
+   * @param seeds hard constraints that stay so
+   * @param parameters the boundary term of the cut
+   * @param perPlane whether the planes of a stack are cut one by one
    */
   static Segmenter.CutOutcome refine(
       Raster features,
@@ -64,23 +85,9 @@ final class EdgeRefinement {
     int d = features.depth();
     int n = mask.length;
     boolean planes = perPlane && d > 1;
-    int B = Integer.getInteger("edge.band", BAND);
-    int R = Integer.getInteger("edge.ring", RING);
-    int W = Integer.getInteger("edge.window", WINDOW);
-    int bandZ = zReach(B, features, planes);
-    int outerZ = zReach(B + R, features, planes) + Integer.getInteger("edge.ringz", 0);
-    int windowZ = zReach(W, features, planes);
     boolean[] boundary = boundary(mask, w, h, d, planes);
-    boolean[] band = dilate(boundary, w, h, d, B, bandZ);
-    boolean[] outer = dilate(boundary, w, h, d, B + R, outerZ);
-    double lf = Double.parseDouble(System.getProperty("edge.lambda", "1"));
-    parameters =
-        new EnergyParameters(
-            parameters.boundaryPenalty() * lf,
-            parameters.contrastScale(),
-            parameters.neighborhood(),
-            parameters.voxelSize());
-    double frac = Double.parseDouble(System.getProperty("edge.frac", "0.5"));
+    boolean[] band = dilate(boundary, w, h, d, BAND, zReach(BAND, features, planes));
+    boolean[] outer = dilate(boundary, w, h, d, BAND + RING, zReach(BAND + RING, features, planes));
     float[] inside = new float[n];
     float[] ring = new float[n];
     for (int p = 0; p < n; p++) {
@@ -92,42 +99,10 @@ final class EdgeRefinement {
         }
       }
     }
-    BoxSums box = new BoxSums(w, h, d, W, W, windowZ);
-    float[] insideCount = box.sum(inside, null);
-    float[] ringCount = box.sum(ring, null);
     int[] objectSource = nearest(inside, band, w, h, d, planes);
     int[] backgroundSource = nearest(ring, band, w, h, d, planes);
+    Levels levels = Levels.measure(features, inside, ring, zReach(WINDOW, features, planes));
     int channels = features.channelCount();
-    float[][] objectLevel = new float[channels][];
-    float[][] backgroundLevel = new float[channels][];
-    double[] variance = new double[channels];
-    for (int c = 0; c < channels; c++) {
-      float[] v = features.channel(c);
-      objectLevel[c] = box.sum(v, inside);
-      backgroundLevel[c] = box.sum(v, ring);
-      double ss = 0;
-      long m = 0;
-      for (int p = 0; p < n; p++) {
-        if (inside[p] != 0) {
-          objectLevel[c][p] /= insideCount[p];
-          double e = v[p] - objectLevel[c][p];
-          ss += e * e;
-          m++;
-        } else if (ring[p] != 0) {
-          backgroundLevel[c][p] /= ringCount[p];
-          double e = v[p] - backgroundLevel[c][p];
-          ss += e * e;
-          m++;
-        }
-      }
-      variance[c] = m > 0 ? ss / m : 0;
-    }
-    if (System.getProperty("edge.debug") != null) {
-      debugT = new float[n];
-      debugO = new float[n];
-      debugB = new float[n];
-      java.util.Arrays.fill(debugT, Float.NaN);
-    }
     float[][] costs = new float[2][n];
     byte[] hard = seeds.labels().clone();
     for (int p = 0; p < n; p++) {
@@ -136,31 +111,21 @@ final class EdgeRefinement {
       }
       int so = objectSource[p];
       int sb = backgroundSource[p];
-      boolean free = band[p] && so >= 0 && sb >= 0;
+      boolean free = so >= 0 && sb >= 0; // both -1 outside the band
       double fg = 0;
       double bg = 0;
       for (int c = 0; c < channels && free; c++) {
-        if (!(variance[c] > 0)) {
-          free = false;
-          break;
-        }
         double v = features.channel(c)[p];
-        double mo = objectLevel[c][so];
-        double mb = backgroundLevel[c][sb];
-        double shift = (frac - 0.5) * (mo - mb);
-        double a = v - mo - shift;
-        double b = v - mb - shift;
-        fg += a * a / (2 * variance[c]);
-        bg += b * b / (2 * variance[c]);
+        double a = v - levels.object[c][so];
+        double b = v - levels.background[c][sb];
+        double s2 = 2 * levels.variance[c];
+        free = s2 > 0;
+        fg += a * a / s2;
+        bg += b * b / s2;
       }
       if (!free) {
         hard[p] = (byte) (mask[p] != 0 ? SeedLabels.FOREGROUND : SeedLabels.BACKGROUND);
         continue;
-      }
-      if (debugT != null) {
-        float[] v0 = features.channel(0);
-        debugT[p] =
-            (v0[p] - backgroundLevel[0][sb]) / (objectLevel[0][so] - backgroundLevel[0][sb]);
       }
       double min = Math.min(fg, bg);
       costs[0][p] = (float) (fg - min);
@@ -170,6 +135,45 @@ final class EdgeRefinement {
     return planes
         ? PlaneCuts.cutEachPlane(features, costs, constraints, parameters)
         : Segmenter.cutVolume(features, costs, constraints, parameters);
+  }
+
+  /** Local object and background levels per channel, and the shared variance per channel. */
+  private record Levels(float[][] object, float[][] background, double[] variance) {
+    static Levels measure(Raster features, float[] inside, float[] ring, int windowZ) {
+      int n = inside.length;
+      BoxSums box =
+          new BoxSums(
+              features.width(), features.height(), features.depth(), WINDOW, WINDOW, windowZ);
+      float[] insideCount = box.sum(inside, null);
+      float[] ringCount = box.sum(ring, null);
+      int channels = features.channelCount();
+      float[][] object = new float[channels][];
+      float[][] background = new float[channels][];
+      double[] variance = new double[channels];
+      for (int c = 0; c < channels; c++) {
+        float[] v = features.channel(c);
+        object[c] = box.sum(v, inside);
+        background[c] = box.sum(v, ring);
+        double ss = 0;
+        long m = 0;
+        for (int p = 0; p < n; p++) {
+          double e;
+          if (inside[p] != 0) {
+            object[c][p] /= insideCount[p];
+            e = v[p] - object[c][p];
+          } else if (ring[p] != 0) {
+            background[c][p] /= ringCount[p];
+            e = v[p] - background[c][p];
+          } else {
+            continue;
+          }
+          ss += e * e;
+          m++;
+        }
+        variance[c] = m > 0 ? ss / m : 0;
+      }
+      return new Levels(object, background, variance);
+    }
   }
 
   /** The band's reach along z in planes: the same physical distance, at least one plane. */
@@ -262,7 +266,7 @@ final class EdgeRefinement {
     int n = source.length;
     int plane = w * h;
     int[] from = new int[n];
-    java.util.Arrays.fill(from, -1);
+    Arrays.fill(from, -1);
     int[] queue = new int[n];
     int tail = 0;
     for (int p = 0; p < n; p++) {
