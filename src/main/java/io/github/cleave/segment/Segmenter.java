@@ -33,8 +33,8 @@ import java.util.concurrent.CancellationException;
  *   <li>Learn the likelihood of each class from its seed voxels ({@link ModelLearner}), or take
  *       them from a saved {@link SegmentationModel}.
  *   <li>Build the grid graph of the energy ({@link CutProblem}) and cut it with the grid max-flow
- *       engine; the source side is the foreground mask. Re-learn the likelihoods from the cut
- *       and cut again for the refinement rounds ({@link RefinedCut}), then place the edges at half
+ *       engine; the source side is the foreground mask. Re-learn the likelihoods from the cut and
+ *       cut again for the refinement rounds ({@link RefinedCut}), then place the edges at half
  *       maximum by one more cut in a thin band around them ({@link EdgeRefinement}).
  *   <li>Drop specks from the mask ({@link MaskCleaning}), form objects from it (holes, splitting of
  *       touching objects, size and edge filters) and measure them on the raw values of the measured
