@@ -31,7 +31,9 @@ import java.util.concurrent.CancellationException;
  *   <li>Learn the likelihood of each class from its seed voxels ({@link ModelLearner}), or take
  *       them from a saved {@link SegmentationModel}.
  *   <li>Build the grid graph of the energy ({@link CutProblem}) and cut it with the grid max-flow
- *       engine; the source side is the foreground mask.
+ *       engine; the source side is the foreground mask. Re-learn the likelihoods from the cut and
+ *       cut again for the refinement rounds ({@link RefinedCut}), then place the edges at half
+ *       maximum by one more cut in a thin band around them ({@link EdgeRefinement}).
  *   <li>Drop specks from the mask ({@link MaskCleaning}), form objects from it (holes, splitting of
  *       touching objects, size and edge filters) and measure them on the raw values of the measured
  *       channels, in calibrated units. The mask returned is the union of the kept objects; the
@@ -211,11 +213,13 @@ public final class Segmenter {
             settings.perPlane(),
             parameters);
     CutOutcome cut = refined.cut();
+    CutOutcome edges =
+        EdgeRefinement.refine(features, cut.mask, seeds, parameters, settings.perPlane());
     SegmentationModel finalModel = model.withLikelihood(refined.likelihood());
     long start = System.nanoTime();
     byte[] cleaned =
         MaskCleaning.withoutSpecks(
-            cut.mask,
+            edges.mask,
             image.width(),
             image.height(),
             image.depth(),
@@ -247,8 +251,8 @@ public final class Segmenter {
             flattenMs,
             learnMs + refined.learnMs(),
             refined.costsMs(),
-            cut.buildMs,
-            cut.solveMs,
+            cut.buildMs + edges.buildMs,
+            cut.solveMs + edges.solveMs,
             objectsMs,
             measureMs),
         warnings);
