@@ -13,9 +13,11 @@ import java.util.List;
  *     (the cut without specks, holes filled, filtered objects removed; see {@code MaskCleaning})
  * @param objects the object label image made from the mask (split, filtered, numbered)
  * @param measurements one entry per object, in object-number order
- * @param energy the minimum energy in nats (the flow value over {@link
- *     io.github.cleave.energy.CapacityScale#UNITS_PER_NAT})
- * @param flowValue the maximum flow in capacity units, equal to the cut value
+ * @param energy the minimum energy in nats of the last global cut (its flow value over {@link
+ *     io.github.cleave.energy.CapacityScale#UNITS_PER_NAT}); edge placement and speck removal
+ *     change the mask after that cut, not this value
+ * @param flowValue the maximum flow of the last global cut in capacity units, equal to its cut
+ *     value
  * @param model the model applied (learned from this image's seeds, or loaded)
  * @param voxelSize the calibration used for measurements ({@code assumed} when the file had none)
  * @param timings per-phase wall-clock times

@@ -6,7 +6,6 @@ import io.github.cleave.energy.CutProblem;
 import io.github.cleave.energy.EnergyParameters;
 import io.github.cleave.flow.Neighborhood;
 import io.github.cleave.image.BadInputException;
-import io.github.cleave.image.PixelKind;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.image.VoxelSize;
@@ -92,9 +91,9 @@ public final class Segmenter {
     SeedLabels hard =
         seeds == null
             ? SeedLabels.empty(image.width(), image.height(), image.depth())
-            : checkSeeds(image, seeds);
+            : SegmentInputs.checkSeeds(image, seeds);
     List<String> warnings = new ArrayList<>();
-    VoxelSize size = resolveVoxelSize(image, model.settings(), warnings);
+    VoxelSize size = SegmentInputs.resolveVoxelSize(image, model.settings(), warnings);
     if (!size.assumed() && !model.voxelSize().assumed() && size.differsFrom(model.voxelSize())) {
       warnings.add(
           String.format(
@@ -112,7 +111,7 @@ public final class Segmenter {
     }
     Raster calibrated = image.withVoxelSize(size);
     long start = System.nanoTime();
-    Raster features = features(calibrated, model.settings());
+    Raster features = SegmentInputs.features(calibrated, model.settings());
     if (model.flatten()) {
       features =
           Illumination.flatten(
@@ -132,13 +131,14 @@ public final class Segmenter {
 
   private static Learned learnWithFeatures(
       Raster image, SeedLabels seeds, SegmentationSettings settings) {
-    checkSeeds(image, seeds);
+    SegmentInputs.checkSeeds(image, seeds);
     List<String> warnings = new ArrayList<>();
-    VoxelSize size = resolveVoxelSize(image, settings, warnings);
+    VoxelSize size = SegmentInputs.resolveVoxelSize(image, settings, warnings);
     Raster calibrated = image.withVoxelSize(size);
-    SegmentationSettings resolved = settings.withDrivingChannels(drivingChannels(image, settings));
+    SegmentationSettings resolved =
+        settings.withDrivingChannels(SegmentInputs.drivingChannels(image, settings));
     long start = System.nanoTime();
-    Raster features = features(calibrated, resolved);
+    Raster features = SegmentInputs.features(calibrated, resolved);
     boolean light = Illumination.isLightBackground(features, seeds);
     boolean flatten = resolved.illumination() == IlluminationMode.ON;
     if (resolved.illumination() != IlluminationMode.OFF) {
@@ -170,7 +170,7 @@ public final class Segmenter {
     double flattenMs = millisSince(start);
     start = System.nanoTime();
     LikelihoodModel likelihood = ModelLearner.learn(features, seeds, resolved.modelKind());
-    Neighborhood nb = neighborhood(image, resolved);
+    Neighborhood nb = SegmentInputs.neighborhood(image, resolved);
     double sigma =
         Double.isNaN(resolved.contrastScale())
             ? ContrastScale.estimate(features, nb)
@@ -199,7 +199,7 @@ public final class Segmenter {
       double learnMs,
       List<String> warnings) {
     SegmentationSettings settings = model.settings();
-    Neighborhood nb = neighborhood(image, settings);
+    Neighborhood nb = SegmentInputs.neighborhood(image, settings);
     EnergyParameters parameters =
         new EnergyParameters(
             settings.boundaryPenalty(), model.contrastScale(), nb, image.voxelSize());
@@ -237,7 +237,7 @@ public final class Segmenter {
     start = System.nanoTime();
     List<ObjectMeasurement> measurements =
         ObjectMeasurements.measure(
-            objects, image.voxelSize(), image, measuredChannels(image, settings));
+            objects, image.voxelSize(), image, SegmentInputs.measuredChannels(image, settings));
     double measureMs = millisSince(start);
     return new Segmentation(
         MaskCleaning.union(objects),
@@ -264,109 +264,6 @@ public final class Segmenter {
   static CutOutcome cutVolume(
       Raster features, float[][] costs, SeedLabels seeds, EnergyParameters parameters) {
     return new VolumeCut(features, seeds, parameters).cut(costs);
-  }
-
-  private static SeedLabels checkSeeds(Raster image, SeedLabels seeds) {
-    if (!seeds.fits(image)) {
-      throw new BadInputException(
-          String.format(
-              Locale.ROOT,
-              "the seeds are %d x %d x %d but the image is %d x %d x %d: draw the seeds on this"
-                  + " image, or give the seed file made for it",
-              seeds.width(),
-              seeds.height(),
-              seeds.depth(),
-              image.width(),
-              image.height(),
-              image.depth()));
-    }
-    int max = seeds.maxLabel();
-    if (max > SeedLabels.BACKGROUND) {
-      throw new BadInputException(
-          "the seeds use class label "
-              + max
-              + "; this version segments foreground (1) against background (2) only: relabel"
-              + " further classes as 1 or 2");
-    }
-    return seeds;
-  }
-
-  private static VoxelSize resolveVoxelSize(
-      Raster image, SegmentationSettings settings, List<String> warnings) {
-    VoxelSize size = image.voxelSize();
-    if (size.assumed()) {
-      VoxelSize assumed =
-          settings.assumedVoxelSize() != null ? settings.assumedVoxelSize() : VoxelSize.PIXELS;
-      size = new VoxelSize(assumed.x(), assumed.y(), assumed.z(), assumed.unit(), true);
-      warnings.add(
-          String.format(
-              Locale.ROOT,
-              "the image has no spatial calibration: assumed %s x %s x %s %s per voxel",
-              size.x(),
-              size.y(),
-              size.z(),
-              size.unit()));
-    }
-    return size;
-  }
-
-  static int[] drivingChannels(Raster image, SegmentationSettings settings) {
-    int[] chosen = settings.drivingChannels();
-    if (chosen == null) {
-      if (image.kind() == PixelKind.RGB) {
-        return new int[] {0, 1, 2};
-      }
-      return new int[] {0};
-    }
-    checkChannelsExist(image, chosen, "driving");
-    return chosen;
-  }
-
-  private static int[] measuredChannels(Raster image, SegmentationSettings settings) {
-    int[] chosen = settings.measuredChannels();
-    if (chosen == null) {
-      int[] all = new int[image.channelCount()];
-      for (int c = 0; c < all.length; c++) {
-        all[c] = c;
-      }
-      return all;
-    }
-    checkChannelsExist(image, chosen, "measured");
-    return chosen;
-  }
-
-  private static void checkChannelsExist(Raster image, int[] channels, String what) {
-    for (int c : channels) {
-      if (c >= image.channelCount()) {
-        throw new BadInputException(
-            String.format(
-                Locale.ROOT,
-                "%s channel %d does not exist: the image has channels 1 to %d",
-                what,
-                c + 1,
-                image.channelCount()));
-      }
-    }
-  }
-
-  private static Raster features(Raster image, SegmentationSettings settings) {
-    return image.selectChannels(drivingChannels(image, settings));
-  }
-
-  static Neighborhood neighborhood(Raster image, SegmentationSettings settings) {
-    boolean volume = image.depth() > 1 && !settings.perPlane();
-    int n = settings.neighborhood() != 0 ? settings.neighborhood() : volume ? 6 : 8;
-    Neighborhood nb = Neighborhood.of(n);
-    if (nb.isThreeDimensional() != volume) {
-      throw new BadInputException(
-          volume
-              ? "neighborhood "
-                  + n
-                  + " is for single planes; a stack cut as a volume takes 6,"
-                  + " 18 or 26 (or cut it plane by plane)"
-              : "neighborhood " + n + " is for stacks cut as volumes; a plane takes 4, 8 or 16");
-    }
-    return nb;
   }
 
   private static byte[] foregroundSeedMask(SeedLabels seeds) {
