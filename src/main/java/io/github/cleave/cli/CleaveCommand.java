@@ -58,6 +58,15 @@ public final class CleaveCommand implements Runnable {
             commandLine.getErr().println("cleave: " + ex.getMessage());
             return ExitCodes.BAD_INPUT;
           }
+          if (ex instanceof java.io.IOException) {
+            commandLine
+                .getErr()
+                .println(
+                    "cleave: cannot read or write a file: "
+                        + ex
+                        + " (check that the folder exists and is writable, and the disk has room)");
+            return ExitCodes.BAD_INPUT;
+          }
           if (ex instanceof CancellationException) {
             commandLine.getErr().println("cleave: interrupted; no partial file was left");
             return ExitCodes.INTERRUPTED;

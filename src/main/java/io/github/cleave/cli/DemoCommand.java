@@ -67,6 +67,8 @@ final class DemoCommand implements Callable<Integer> {
               + samples
               + ": give --samples FOLDER, or run make-samples first");
     }
+    SegmentationFiles.prepareOutputFolder(
+        out, new SegmentationFiles.Inputs(images.get(0), null, null));
     PrintWriter stdout = spec.commandLine().getOut();
     List<ContactSheet.Tile> tiles = new ArrayList<>();
     boolean failures = false;
@@ -98,7 +100,7 @@ final class DemoCommand implements Callable<Integer> {
                     in.seeds()),
                 result.objects().count(),
                 dice));
-      } catch (BadInputException | InputException e) {
+      } catch (BadInputException | InputException | IOException | IllegalArgumentException e) {
         failures = true;
         spec.commandLine()
             .getErr()

@@ -44,9 +44,7 @@ final class LearnCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     var settings = options.settings();
-    if (Files.exists(model) && !force) {
-      throw new InputException(model + " exists: use --force to replace it");
-    }
+    ModelOutput.check(model, "--model", force);
     ImageInputs.ImageWithSeeds in = ImageInputs.read(input.image, input.seeds, true);
     for (Path input : new Path[] {input.image, in.seedFile()}) {
       if (Files.exists(model) && Files.isSameFile(model, input)) {

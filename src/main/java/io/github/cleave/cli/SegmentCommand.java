@@ -4,7 +4,6 @@ import io.github.cleave.io.ModelFiles;
 import io.github.cleave.io.SegmentationFiles;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.Segmenter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -52,19 +51,16 @@ final class SegmentCommand implements Callable<Integer> {
     SegmentationFiles.Inputs inputs =
         new SegmentationFiles.Inputs(input.image, in.seedFile(), null);
     SegmentationFiles.prepareOutputFolder(output.out, inputs);
-    if (saveModel != null && Files.exists(saveModel)) {
-      throw new InputException(
-          "--save-model "
-              + saveModel
-              + " exists: choose a new file name (a model is never replaced)");
+    if (saveModel != null) {
+      ModelOutput.check(saveModel, "--save-model", false);
     }
     Progress.say(spec, "segmenting " + input.image.getFileName());
     Segmentation result = Segmenter.segment(in.image().raster(), in.seeds(), settings);
     String name = SegmentationFiles.baseName(input.image);
-    SegmentationFiles.write(output.out, name, in.image(), in.seeds(), result, inputs, "segment");
     if (saveModel != null) {
       ModelFiles.write(saveModel, result.model());
     }
+    SegmentationFiles.write(output.out, name, in.image(), in.seeds(), result, inputs, "segment");
     Summary.print(name, result, spec.commandLine().getOut(), spec.commandLine().getErr());
     return ExitCodes.OK;
   }

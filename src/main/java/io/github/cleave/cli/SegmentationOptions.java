@@ -199,7 +199,11 @@ final class SegmentationOptions {
       return Double.NaN;
     }
     try {
-      return Double.parseDouble(contrastScale);
+      double sigma = Double.parseDouble(contrastScale);
+      if (!(sigma > 0) || Double.isInfinite(sigma)) {
+        throw new NumberFormatException();
+      }
+      return sigma;
     } catch (NumberFormatException e) {
       throw new InputException(
           "--contrast-scale " + contrastScale + ": give a positive number or 'auto'");

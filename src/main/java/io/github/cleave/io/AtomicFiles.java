@@ -1,7 +1,10 @@
 package io.github.cleave.io;
 
+import java.io.BufferedOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
+import java.nio.channels.Channels;
+import java.nio.channels.FileChannel;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -65,10 +68,12 @@ public final class AtomicFiles {
                 + ".part");
     IN_PROGRESS.add(temporary);
     try {
-      try (OutputStream out =
-          Files.newOutputStream(
-              temporary, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE)) {
+      try (FileChannel channel =
+              FileChannel.open(temporary, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
+          OutputStream out = new BufferedOutputStream(Channels.newOutputStream(channel), 1 << 16)) {
         content.writeTo(out);
+        out.flush();
+        channel.force(true); // on disk before the rename makes it visible
       }
       try {
         Files.move(
@@ -80,7 +85,11 @@ public final class AtomicFiles {
         Files.move(temporary, absolute, StandardCopyOption.REPLACE_EXISTING);
       }
     } finally {
-      Files.deleteIfExists(temporary);
+      try {
+        Files.deleteIfExists(temporary); // only still there if something failed
+      } catch (IOException e) {
+        // best effort: do not hide the failure that brought us here
+      }
       IN_PROGRESS.remove(temporary);
     }
   }

@@ -84,7 +84,10 @@ final class JsonFields {
     int[] out = new int[a.size()];
     for (int i = 0; i < out.length; i++) {
       JsonElement v = a.get(i);
-      if (!v.isJsonPrimitive() || !v.getAsJsonPrimitive().isNumber()) {
+      if (!v.isJsonPrimitive()
+          || !v.getAsJsonPrimitive().isNumber()
+          || v.getAsDouble() != Math.rint(v.getAsDouble())
+          || Math.abs(v.getAsDouble()) > Integer.MAX_VALUE) {
         throw wrong(name, "an array of whole numbers");
       }
       out[i] = v.getAsInt();

@@ -70,6 +70,9 @@ public final class ModelFiles {
           "model file " + file + " is not a Cleave model (no \"format\": \"" + FORMAT + "\")");
     }
     int version = f.integer("formatVersion");
+    if (version < 1) {
+      throw f.wrong("formatVersion", "a version number of 1 or more");
+    }
     if (version > SegmentationModel.FORMAT_VERSION) {
       throw new BadInputException(
           "model file "
@@ -152,12 +155,14 @@ public final class ModelFiles {
   }
 
   private static SegmentationSettings settingsFromJson(JsonFields f) {
-    double sigma =
+    boolean auto =
         f.raw().get("contrastScale") != null
-                && f.raw().get("contrastScale").isJsonPrimitive()
-                && f.raw().getAsJsonPrimitive("contrastScale").isString()
-            ? Double.NaN
-            : f.number("contrastScale");
+            && f.raw().get("contrastScale").isJsonPrimitive()
+            && f.raw().getAsJsonPrimitive("contrastScale").isString();
+    if (auto && !"auto".equals(f.string("contrastScale"))) {
+      throw f.wrong("contrastScale", "a number or \"auto\"");
+    }
+    double sigma = auto ? Double.NaN : f.number("contrastScale");
     JsonFields ob = f.object("objects");
     return new SegmentationSettings(
         f.number("boundaryPenalty"),

@@ -47,10 +47,25 @@ public final class SegmentationFiles {
    * @throws BadInputException if the output folder is an input folder or cannot be created
    */
   public static void prepareOutputFolder(Path outDir, Inputs inputs) {
-    Path out = outDir.toAbsolutePath().normalize();
+    if (Files.exists(outDir) && !Files.isDirectory(outDir)) {
+      throw new BadInputException(
+          "the output " + outDir + " is a file, not a folder: give a folder for the results");
+    }
+    try {
+      Files.createDirectories(outDir);
+    } catch (IOException e) {
+      throw new BadInputException(
+          "cannot create the output folder " + outDir + " (" + e.getMessage() + ")", e);
+    }
     for (Path input : inputList(inputs)) {
-      Path folder = input.toAbsolutePath().normalize().getParent();
-      if (out.equals(folder)) {
+      Path folder = input.toAbsolutePath().getParent();
+      boolean same;
+      try {
+        same = folder != null && Files.isSameFile(outDir, folder); // follows links
+      } catch (IOException e) {
+        same = false; // the input folder vanished: the input will fail on its own
+      }
+      if (same) {
         throw new BadInputException(
             "the output folder "
                 + outDir
@@ -58,16 +73,6 @@ public final class SegmentationFiles {
                 + input.getFileName()
                 + ": choose another output folder so that inputs are never overwritten");
       }
-    }
-    if (Files.exists(out) && !Files.isDirectory(out)) {
-      throw new BadInputException(
-          "the output " + outDir + " is a file, not a folder: give a folder for the results");
-    }
-    try {
-      Files.createDirectories(out);
-    } catch (IOException e) {
-      throw new BadInputException(
-          "cannot create the output folder " + outDir + " (" + e.getMessage() + ")", e);
     }
   }
 

@@ -80,6 +80,9 @@ public final class Illumination {
     int w = features.width();
     int h = features.height();
     int plane = w * h;
+    // A ball wider than the image rolls the same as one as wide as the image (and ImageJ's
+    // implementation fails on radii far beyond the image size).
+    double ballRadius = Math.min(radius, Math.max(w, h));
     float[][] out = new float[features.channelCount()][];
     double[] strength = new double[features.channelCount()];
     double[] kept = new double[features.channelCount()];
@@ -90,7 +93,7 @@ public final class Illumination {
         float[] pixels = Arrays.copyOfRange(values, z * plane, (z + 1) * plane);
         FloatProcessor fp = new FloatProcessor(w, h, pixels);
         BackgroundSubtracter subtracter = new BackgroundSubtracter();
-        subtracter.rollingBallBackground(fp, radius, true, lightBackground, false, true, true);
+        subtracter.rollingBallBackground(fp, ballRadius, true, lightBackground, false, true, true);
         System.arraycopy((float[]) fp.getPixels(), 0, background, z * plane, plane);
       }
       double mean = 0;

@@ -1,5 +1,6 @@
 package io.github.cleave.segment;
 
+import io.github.cleave.image.SeedLabels;
 import io.github.cleave.image.VoxelSize;
 import io.github.cleave.objects.ObjectLabels;
 import io.github.cleave.objects.ObjectSplit;
@@ -17,13 +18,22 @@ import io.github.cleave.objects.ObjectSplitting;
 final class MaskCleaning {
   private MaskCleaning() {}
 
-  /** A copy of {@code mask} (255/0) without the components smaller than {@code minVoxels}. */
-  static byte[] withoutSpecks(byte[] mask, int w, int h, int d, int minVoxels) {
+  /**
+   * A copy of {@code mask} (255/0) without the components smaller than {@code minVoxels}, except
+   * those holding a foreground seed.
+   */
+  static byte[] withoutSpecks(byte[] mask, int w, int h, int d, int minVoxels, SeedLabels seeds) {
     ObjectLabels parts =
         ObjectSplitting.split(mask, w, h, d, VoxelSize.PIXELS, ObjectSplit.NONE, null);
     int[] sizes = new int[parts.count() + 1];
     for (int i = 0; i < mask.length; i++) {
       sizes[parts.labelAt(i)]++;
+    }
+    byte[] seedLabels = seeds.labels();
+    for (int i = 0; i < mask.length; i++) {
+      if (seedLabels[i] == SeedLabels.FOREGROUND) {
+        sizes[parts.labelAt(i)] = Integer.MAX_VALUE; // a piece the user marked is never a speck
+      }
     }
     byte[] out = new byte[mask.length];
     for (int i = 0; i < mask.length; i++) {

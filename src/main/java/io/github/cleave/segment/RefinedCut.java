@@ -83,8 +83,12 @@ final class RefinedCut {
       if (round == rounds || unchanged || !bothClassesPresent(cut.mask())) {
         break;
       }
+      SeedLabels fromCut = labelsFromCut(cut.mask(), seeds);
+      if (!hasBothClasses(fromCut)) {
+        break; // the cut's foreground is all boundary band: nothing to learn from, keep it
+      }
       start = System.nanoTime();
-      likelihood = ModelLearner.learn(features, labelsFromCut(cut.mask(), seeds), kind);
+      likelihood = ModelLearner.learn(features, fromCut, kind);
       learnMs += Segmenter.millisSince(start);
       round++;
     }
@@ -130,6 +134,16 @@ final class RefinedCut {
       costs[0][i] += cf;
       costs[1][i] += cb;
     }
+  }
+
+  private static boolean hasBothClasses(SeedLabels labels) {
+    boolean fg = false;
+    boolean bg = false;
+    for (byte b : labels.labels()) {
+      fg |= b == SeedLabels.FOREGROUND;
+      bg |= b == SeedLabels.BACKGROUND;
+    }
+    return fg && bg;
   }
 
   private static boolean bothClassesPresent(byte[] mask) {

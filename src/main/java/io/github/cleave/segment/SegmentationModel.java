@@ -31,6 +31,35 @@ public record SegmentationModel(
     VoxelSize voxelSize,
     String softwareVersion) {
 
+  /**
+   * @throws IllegalArgumentException naming the value if σ is not positive and finite, the channel
+   *     count is below 1, or the driving channels do not match the likelihood's channel count
+   */
+  public SegmentationModel {
+    if (!(contrastScale > 0) || Double.isInfinite(contrastScale)) {
+      throw new IllegalArgumentException(
+          "contrast scale " + contrastScale + " must be a positive number");
+    }
+    if (imageChannels < 1) {
+      throw new IllegalArgumentException("image channel count " + imageChannels + " must be >= 1");
+    }
+    int[] driving = settings.drivingChannels();
+    if (driving != null && driving.length != likelihood.channelCount()) {
+      throw new IllegalArgumentException(
+          driving.length
+              + " driving channel(s) but the likelihood model has "
+              + likelihood.channelCount());
+    }
+    if (driving != null) {
+      for (int c : driving) {
+        if (c >= imageChannels) {
+          throw new IllegalArgumentException(
+              "driving channel " + (c + 1) + " but the image has " + imageChannels + " channel(s)");
+        }
+      }
+    }
+  }
+
   /** Format version of model files written by this version. */
   public static final int FORMAT_VERSION = 1;
 

@@ -53,6 +53,9 @@ public record SegmentationSettings(
   /** Default number of refinement rounds. */
   public static final int DEFAULT_REFINEMENT_ROUNDS = 3;
 
+  /** Largest rolling-ball radius accepted, in pixels. */
+  public static final double MAX_FLATTEN_RADIUS = 5000;
+
   /** Default rolling-ball radius in pixels. */
   public static final double DEFAULT_FLATTEN_RADIUS = 50;
 
@@ -94,9 +97,12 @@ public record SegmentationSettings(
       throw new IllegalArgumentException(
           "refinement rounds " + refinementRounds + ": use a whole number from 0 to 20");
     }
-    if (!(flattenRadius > 0) || Double.isInfinite(flattenRadius)) {
+    if (!(flattenRadius > 0) || flattenRadius > MAX_FLATTEN_RADIUS) {
       throw new IllegalArgumentException(
-          "flattening radius " + flattenRadius + " pixels: use a positive number");
+          "flattening radius "
+              + flattenRadius
+              + " pixels: use a positive number up to "
+              + MAX_FLATTEN_RADIUS);
     }
     drivingChannels = checkChannels(drivingChannels, "driving");
     measuredChannels = checkChannels(measuredChannels, "measured");

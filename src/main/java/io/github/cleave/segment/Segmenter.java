@@ -53,7 +53,7 @@ public final class Segmenter {
     Learned learned = learnWithFeatures(image, seeds, settings);
     return applyTo(
         learned.model,
-        image,
+        learned.calibrated,
         seeds,
         learned.features,
         learned.flattenMs,
@@ -94,7 +94,7 @@ public final class Segmenter {
             : SegmentInputs.checkSeeds(image, seeds);
     List<String> warnings = new ArrayList<>();
     VoxelSize size = SegmentInputs.resolveVoxelSize(image, model.settings(), warnings);
-    if (!size.assumed() && !model.voxelSize().assumed() && size.differsFrom(model.voxelSize())) {
+    if (size.differsFrom(model.voxelSize())) {
       warnings.add(
           String.format(
               Locale.ROOT,
@@ -108,6 +108,14 @@ public final class Segmenter {
               model.voxelSize().y(),
               model.voxelSize().z(),
               model.voxelSize().unit()));
+    }
+    if (image.kind() != model.pixelKind()) {
+      warnings.add(
+          "the image's pixels are "
+              + image.kind()
+              + " but the model was learned on "
+              + model.pixelKind()
+              + " pixels: its likelihoods may not fit this image's value range");
     }
     Raster calibrated = image.withVoxelSize(size);
     long start = System.nanoTime();
@@ -124,6 +132,7 @@ public final class Segmenter {
 
   private record Learned(
       SegmentationModel model,
+      Raster calibrated,
       Raster features,
       double flattenMs,
       double learnMs,
@@ -187,7 +196,7 @@ public final class Segmenter {
             image.kind(),
             size,
             SoftwareVersion.get());
-    return new Learned(model, features, flattenMs, learnMs, warnings);
+    return new Learned(model, calibrated, features, flattenMs, learnMs, warnings);
   }
 
   private static Segmentation applyTo(
@@ -223,7 +232,8 @@ public final class Segmenter {
             image.width(),
             image.height(),
             image.depth(),
-            SegmentationSettings.SPECK_VOXELS);
+            SegmentationSettings.SPECK_VOXELS,
+            seeds);
     ObjectLabels objects =
         ObjectPipeline.run(
             cleaned,
