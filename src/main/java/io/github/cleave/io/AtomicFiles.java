@@ -1,6 +1,7 @@
 package io.github.cleave.io;
 
 import java.io.BufferedOutputStream;
+import java.io.FilterOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.nio.channels.Channels;
@@ -69,10 +70,11 @@ public final class AtomicFiles {
     IN_PROGRESS.add(temporary);
     try {
       try (FileChannel channel =
-              FileChannel.open(temporary, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
-          OutputStream out = new BufferedOutputStream(Channels.newOutputStream(channel), 1 << 16)) {
-        content.writeTo(out);
-        out.flush();
+          FileChannel.open(temporary, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE)) {
+        OutputStream buffered =
+            new BufferedOutputStream(Channels.newOutputStream(channel), 1 << 16);
+        content.writeTo(new KeepOpen(buffered)); // a content that closes its stream keeps ours open
+        buffered.flush();
         channel.force(true); // on disk before the rename makes it visible
       }
       try {
@@ -91,6 +93,23 @@ public final class AtomicFiles {
         // best effort: do not hide the failure that brought us here
       }
       IN_PROGRESS.remove(temporary);
+    }
+  }
+
+  /** Passes writes through; {@code close()} only flushes, so the file can still be forced. */
+  private static final class KeepOpen extends FilterOutputStream {
+    KeepOpen(OutputStream out) {
+      super(out);
+    }
+
+    @Override
+    public void write(byte[] b, int off, int len) throws IOException {
+      out.write(b, off, len);
+    }
+
+    @Override
+    public void close() throws IOException {
+      flush();
     }
   }
 }
