@@ -31,6 +31,27 @@ final class Grids {
     int y = r % h;
     int z = r / h;
     int n = 0;
+    if (!full) { // the axial neighbours, in the same (z, y, x) order as the loops below
+      if (z > 0) {
+        buffer[n++] = i - w * h;
+      }
+      if (y > 0) {
+        buffer[n++] = i - w;
+      }
+      if (x > 0) {
+        buffer[n++] = i - 1;
+      }
+      if (x < w - 1) {
+        buffer[n++] = i + 1;
+      }
+      if (y < h - 1) {
+        buffer[n++] = i + w;
+      }
+      if (z < d - 1) {
+        buffer[n++] = i + w * h;
+      }
+      return n;
+    }
     int z0 = z > 0 ? -1 : 0;
     int z1 = z < d - 1 ? 1 : 0;
     int y0 = y > 0 ? -1 : 0;

@@ -29,18 +29,23 @@ public final class HoleFilling {
     byte[] outside = new byte[n]; // 1 = background reached from the border
     int[] queue = new int[n];
     int tail = 0;
-    for (int i = 0; i < n; i++) {
-      if (mask[i] != 0) {
-        continue;
-      }
-      int x = i % w;
-      int y = (i / w) % h;
-      int z = i / (w * h);
-      boolean border =
-          x == 0 || x == w - 1 || y == 0 || y == h - 1 || (d > 1 && (z == 0 || z == d - 1));
-      if (border) {
-        outside[i] = 1;
-        queue[tail++] = i;
+    for (int z = 0; z < d; z++) {
+      boolean facePlane = d > 1 && (z == 0 || z == d - 1);
+      for (int y = 0; y < h; y++) {
+        boolean edgeRow = facePlane || y == 0 || y == h - 1;
+        int row = w * (y + h * z);
+        for (int x = 0; x < w; x++) {
+          // border voxels only: every x on edge rows and face planes, else the first and last
+          if (!edgeRow && x != 0 && x != w - 1) {
+            x = w - 2; // skip to the last column
+            continue;
+          }
+          int i = row + x;
+          if (mask[i] == 0 && outside[i] == 0) {
+            outside[i] = 1;
+            queue[tail++] = i;
+          }
+        }
       }
     }
     Grids grid = new Grids(w, h, d, false);
