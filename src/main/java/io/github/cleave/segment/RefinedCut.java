@@ -83,7 +83,7 @@ final class RefinedCut {
       if (round == rounds || unchanged || !bothClassesPresent(cut.mask())) {
         break;
       }
-      SeedLabels fromCut = labelsFromCut(cut.mask(), seeds);
+      SeedLabels fromCut = labelsFromCut(cut.mask(), seeds, perPlane);
       if (!hasBothClasses(fromCut)) {
         break; // the cut's foreground is all boundary band: nothing to learn from, keep it
       }
@@ -100,13 +100,25 @@ final class RefinedCut {
    * Labels 1 on the cut's foreground and 2 elsewhere, except within {@value #BAND} voxels of the
    * cut's boundary (left unlabelled), seed voxels keeping their own label.
    */
-  static SeedLabels labelsFromCut(byte[] mask, SeedLabels seeds) {
+  static SeedLabels labelsFromCut(byte[] mask, SeedLabels seeds, boolean perPlane) {
     byte[] seedLabels = seeds.labels();
     byte[] labels = new byte[mask.length];
     for (int i = 0; i < mask.length; i++) {
       labels[i] = (byte) (mask[i] != 0 ? SeedLabels.FOREGROUND : SeedLabels.BACKGROUND);
     }
-    BoundaryBand.clear(labels, mask, seeds.width(), seeds.height(), seeds.depth(), BAND);
+    int w = seeds.width();
+    int h = seeds.height();
+    if (perPlane && seeds.depth() > 1) { // planes cut apart: the band must not cross planes
+      int plane = w * h;
+      for (int z = 0; z < seeds.depth(); z++) {
+        byte[] planeLabels = Arrays.copyOfRange(labels, z * plane, (z + 1) * plane);
+        byte[] planeMask = Arrays.copyOfRange(mask, z * plane, (z + 1) * plane);
+        BoundaryBand.clear(planeLabels, planeMask, w, h, 1, BAND);
+        System.arraycopy(planeLabels, 0, labels, z * plane, plane);
+      }
+    } else {
+      BoundaryBand.clear(labels, mask, w, h, seeds.depth(), BAND);
+    }
     for (int i = 0; i < mask.length; i++) {
       if (seedLabels[i] != 0) {
         labels[i] = seedLabels[i];

@@ -113,6 +113,35 @@ class SegmentCommandEdgeCasesTest {
   }
 
   @Test
+  void aStackCutPlaneByPlaneKeepsItsPlanesApart(@TempDir Path tmp) throws IOException {
+    SampleWriter.write(SamplePhantoms.stack(9, 96, 96, 12), tmp, "stack");
+    Path out = tmp.resolve("out");
+    MaxflowCommandTest.Run r =
+        run(
+            "segment",
+            "--image",
+            tmp.resolve("stack.tif").toString(),
+            "--out",
+            out.toString(),
+            "--per-plane");
+    assertThat(r.exit()).as(r.err()).isZero();
+    ImagePlus mask = IJ.openImage(out.resolve("stack.mask.tif").toString());
+    assertThat(mask.getStackSize()).isEqualTo(12);
+    // a volume neighbourhood is refused in per-plane mode
+    r =
+        run(
+            "segment",
+            "--image",
+            tmp.resolve("stack.tif").toString(),
+            "--out",
+            tmp.resolve("out2").toString(),
+            "--per-plane",
+            "--neighborhood",
+            "6");
+    assertThat(r.exit()).isEqualTo(2);
+  }
+
+  @Test
   void demoRefusesToWriteIntoItsSamplesFolder() throws IOException {
     long before;
     try (var s = Files.list(dir)) {
