@@ -1,16 +1,15 @@
 package io.github.cleave.cli;
 
 import io.github.cleave.image.BadInputException;
-import io.github.cleave.image.Raster;
 import io.github.cleave.io.ImageFiles;
 import io.github.cleave.io.ImageOutputs;
 import io.github.cleave.io.SegmentationFiles;
 import io.github.cleave.quality.Agreement;
 import io.github.cleave.render.ContactSheet;
-import io.github.cleave.render.OverlayPicture;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.SegmentationSettings;
 import io.github.cleave.segment.Segmenter;
+import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
@@ -81,25 +80,16 @@ final class DemoCommand implements Callable<Integer> {
         SegmentationFiles.prepareOutputFolder(out, inputs);
         Segmentation result =
             Segmenter.segment(in.image().raster(), in.seeds(), SegmentationSettings.defaults());
-        SegmentationFiles.write(out, name, in.image(), in.seeds(), result, inputs, "demo");
+        BufferedImage picture =
+            SegmentationFiles.write(out, name, in.image(), in.seeds(), result, inputs, "demo");
         Summary.print(name, result, stdout, spec.commandLine().getErr());
         double dice = dice(image.resolveSibling(name + ".truth.tif"), result);
         if (!Double.isNaN(dice)) {
           stdout.println(String.format(Locale.ROOT, "%s: Dice against the truth %.4f", name, dice));
         }
-        Raster raster = in.image().raster();
         tiles.add(
             ContactSheet.Tile.done(
-                image.getFileName().toString(),
-                OverlayPicture.render(
-                    raster,
-                    SegmentationFiles.displayChannels(raster, result),
-                    null,
-                    result.mask(),
-                    result.objects().labels(),
-                    in.seeds()),
-                result.objects().count(),
-                dice));
+                image.getFileName().toString(), picture, result.objects().count(), dice));
       } catch (BadInputException | InputException | IOException | IllegalArgumentException e) {
         failures = true;
         spec.commandLine()

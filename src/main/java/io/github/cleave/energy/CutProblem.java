@@ -105,7 +105,7 @@ public final class CutProblem {
       }
     }
     solver.setTerminalCapacities(source, sink);
-    return new CutProblem(solver, hard, source.clone(), sink.clone(), labels);
+    return new CutProblem(solver, hard, source, sink, labels); // the solver copied the values
   }
 
   /**

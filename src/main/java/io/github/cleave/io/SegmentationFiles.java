@@ -7,6 +7,7 @@ import io.github.cleave.image.SeedLabels;
 import io.github.cleave.objects.RoiExport;
 import io.github.cleave.render.OverlayPicture;
 import io.github.cleave.segment.Segmentation;
+import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -80,8 +81,9 @@ public final class SegmentationFiles {
    * Writes every output of {@code result} for the image {@code image} into {@code outDir}.
    *
    * @param seeds the seeds to draw on the overlay (may be null)
+   * @return the overlay picture written, for contact sheets
    */
-  public static void write(
+  public static BufferedImage write(
       Path outDir,
       String name,
       LoadedImage image,
@@ -118,17 +120,18 @@ public final class SegmentationFiles {
     AtomicFiles.write(csv, out -> out.write(table));
     byte[] zip = RoiExport.roiZip(result.objects());
     AtomicFiles.write(rois, out -> out.write(zip));
-    ImageOutputs.writePng(
-        overlay,
+    BufferedImage picture =
         OverlayPicture.render(
             raster,
             displayChannels(raster, result),
             null,
             result.mask(),
             result.objects().labels(),
-            seeds));
+            seeds);
+    ImageOutputs.writePng(overlay, picture);
     byte[] json = RunRecord.json(name, image, inputs, result, command);
     AtomicFiles.write(record, out -> out.write(json));
+    return picture;
   }
 
   /** The channels shown in pictures: RGB as colour, otherwise the driving channels. */

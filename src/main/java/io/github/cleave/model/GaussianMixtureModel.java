@@ -7,8 +7,8 @@ import java.util.Locale;
 
 /**
  * Colour or multichannel likelihoods: one full-covariance {@link GaussianMixture} per class, as in
- * GrabCut (Rother, Kolmogorov & Blake, "GrabCut: interactive foreground extraction using iterated
- * graph cuts", ACM Trans. Graphics 23(3), 2004), learned by {@link ModelLearner}.
+ * Rother, Kolmogorov & Blake, "Interactive foreground extraction using iterated graph cuts", ACM
+ * Trans. Graphics 23(3), 2004, learned by {@link ModelLearner}.
  *
  * <p>Cost of class c at a voxel with feature vector x: {@code −ln p_c(x)}, then <b>shifted per
  * voxel</b> by subtracting the smallest cost over the classes at that voxel (the most likely class

@@ -7,7 +7,7 @@ import java.util.SplittableRandom;
  * (Arthur & Vassilvitskii, "k-means++: the advantages of careful seeding", SODA 2007) with a fixed
  * random seed, a few Lloyd iterations, then expectation-maximisation (Dempster, Laird & Rubin,
  * "Maximum likelihood from incomplete data via the EM algorithm", J. Royal Statistical Society B
- * 39(1), 1977), as GrabCut initialises its colour models (Rother, Kolmogorov & Blake 2004).
+ * 39(1), 1977), as Rother, Kolmogorov & Blake (2004) initialise their colour models.
  *
  * <p>Every covariance gets {@code regularisation · I} added after each estimate, so that it stays
  * positive definite even when the samples are all equal or lie in a plane. A component whose

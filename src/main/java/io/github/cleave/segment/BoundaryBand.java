@@ -1,43 +1,82 @@
 package io.github.cleave.segment;
 
 /**
- * Clears the labels of the voxels within a given number of steps of a mask's boundary, steps
- * counted along the axes (city-block distance); a boundary voxel is one with an axial neighbour of
- * the other class. O(n · width) time, no recursion.
+ * Bands around the boundary of a mask, for the steps that treat the voxels near a cut differently
+ * ({@link RefinedCut}, {@link EdgeRefinement}): a boundary voxel is one with an axial neighbour of
+ * the other class, and a band grows from the boundary voxels by axial steps (city-block distance),
+ * across planes or only within them. Breadth-first, no recursion; O(n · steps). Stateless.
  */
 final class BoundaryBand {
   private BoundaryBand() {}
 
-  static void clear(byte[] labels, byte[] mask, int w, int h, int d, int width) {
-    int n = mask.length;
+  /**
+   * Clears the labels of the voxels within {@code width} steps of the mask's boundary, the boundary
+   * voxels themselves counting as the first step.
+   *
+   * @param planes whether the planes of a stack are separate (no step or boundary across planes)
+   */
+  static void clear(byte[] labels, byte[] mask, int w, int h, int d, int width, boolean planes) {
+    boolean[] band = grow(boundary(mask, w, h, d, planes), w, h, d, width - 1, !planes);
+    for (int p = 0; p < band.length; p++) {
+      if (band[p]) {
+        labels[p] = 0;
+      }
+    }
+  }
+
+  /** Voxels with an axial neighbour of the other class (within its plane when {@code planes}). */
+  static boolean[] boundary(byte[] mask, int w, int h, int d, boolean planes) {
+    boolean[] out = new boolean[mask.length];
+    int plane = w * h;
+    for (int p = 0; p < mask.length; p++) {
+      boolean fg = mask[p] != 0;
+      int x = p % w;
+      int y = p / w % h;
+      int z = p / plane;
+      out[p] =
+          x > 0 && (mask[p - 1] != 0) != fg
+              || x < w - 1 && (mask[p + 1] != 0) != fg
+              || y > 0 && (mask[p - w] != 0) != fg
+              || y < h - 1 && (mask[p + w] != 0) != fg
+              || !planes && z > 0 && (mask[p - plane] != 0) != fg
+              || !planes && z < d - 1 && (mask[p + plane] != 0) != fg;
+    }
+    return out;
+  }
+
+  /**
+   * A copy of {@code set} grown by {@code steps} axial steps, along z too when {@code acrossPlanes}
+   * (a city-block ball of radius {@code steps} around every voxel of the set).
+   */
+  static boolean[] grow(boolean[] set, int w, int h, int d, int steps, boolean acrossPlanes) {
+    int n = set.length;
+    int plane = w * h;
+    boolean[] in = set.clone();
     int[] front = new int[n];
-    int frontSize = 0;
-    boolean[] inBand = new boolean[n];
+    int size = 0;
     for (int p = 0; p < n; p++) {
-      if (isBoundary(mask, p, w, h, d)) {
-        inBand[p] = true;
-        front[frontSize++] = p;
+      if (in[p]) {
+        front[size++] = p;
       }
     }
     int[] next = new int[n];
-    for (int step = 1; step < width && frontSize > 0; step++) {
+    int[] around = new int[6];
+    for (int step = 0; step < steps && size > 0; step++) {
       int nextSize = 0;
-      for (int i = 0; i < frontSize; i++) {
+      for (int i = 0; i < size; i++) {
         int p = front[i];
         int x = p % w;
         int y = p / w % h;
-        int z = p / (w * h);
-        int[] neighbours = {
-          x > 0 ? p - 1 : -1,
-          x < w - 1 ? p + 1 : -1,
-          y > 0 ? p - w : -1,
-          y < h - 1 ? p + w : -1,
-          z > 0 ? p - w * h : -1,
-          z < d - 1 ? p + w * h : -1
-        };
-        for (int q : neighbours) {
-          if (q >= 0 && !inBand[q]) {
-            inBand[q] = true;
+        int z = p / plane;
+        around[0] = x > 0 ? p - 1 : -1;
+        around[1] = x < w - 1 ? p + 1 : -1;
+        around[2] = y > 0 ? p - w : -1;
+        around[3] = y < h - 1 ? p + w : -1;
+        around[4] = acrossPlanes && z > 0 ? p - plane : -1;
+        around[5] = acrossPlanes && z < d - 1 ? p + plane : -1;
+        for (int q : around) {
+          if (q >= 0 && !in[q]) {
+            in[q] = true;
             next[nextSize++] = q;
           }
         }
@@ -45,25 +84,8 @@ final class BoundaryBand {
       int[] t = front;
       front = next;
       next = t;
-      frontSize = nextSize;
+      size = nextSize;
     }
-    for (int p = 0; p < n; p++) {
-      if (inBand[p]) {
-        labels[p] = 0;
-      }
-    }
-  }
-
-  private static boolean isBoundary(byte[] mask, int p, int w, int h, int d) {
-    boolean fg = mask[p] != 0;
-    int x = p % w;
-    int y = p / w % h;
-    int z = p / (w * h);
-    return x > 0 && (mask[p - 1] != 0) != fg
-        || x < w - 1 && (mask[p + 1] != 0) != fg
-        || y > 0 && (mask[p - w] != 0) != fg
-        || y < h - 1 && (mask[p + w] != 0) != fg
-        || z > 0 && (mask[p - w * h] != 0) != fg
-        || z < d - 1 && (mask[p + w * h] != 0) != fg;
+    return in;
   }
 }

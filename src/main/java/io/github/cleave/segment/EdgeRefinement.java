@@ -85,7 +85,7 @@ final class EdgeRefinement {
     int d = features.depth();
     int n = mask.length;
     boolean planes = perPlane && d > 1;
-    boolean[] boundary = boundary(mask, w, h, d, planes);
+    boolean[] boundary = BoundaryBand.boundary(mask, w, h, d, planes);
     boolean[] band = dilate(boundary, w, h, d, BAND, zReach(BAND, features, planes));
     boolean[] outer = dilate(boundary, w, h, d, BAND + RING, zReach(BAND + RING, features, planes));
     float[] inside = new float[n];
@@ -185,62 +185,13 @@ final class EdgeRefinement {
     return Math.max(1, (int) Math.round(widths * ratio));
   }
 
-  /** Voxels with an axial neighbour of the other class (in the plane only when cut per plane). */
-  private static boolean[] boundary(byte[] mask, int w, int h, int d, boolean planes) {
-    boolean[] out = new boolean[mask.length];
-    int plane = w * h;
-    for (int p = 0; p < mask.length; p++) {
-      boolean fg = mask[p] != 0;
-      int x = p % w;
-      int y = p / w % h;
-      int z = p / plane;
-      out[p] =
-          x > 0 && (mask[p - 1] != 0) != fg
-              || x < w - 1 && (mask[p + 1] != 0) != fg
-              || y > 0 && (mask[p - w] != 0) != fg
-              || y < h - 1 && (mask[p + w] != 0) != fg
-              || !planes && z > 0 && (mask[p - plane] != 0) != fg
-              || !planes && z < d - 1 && (mask[p + plane] != 0) != fg;
-    }
-    return out;
-  }
-
   /**
    * Dilation by a city-block diamond of radius {@code rxy} in each plane followed by a segment of
    * ±{@code rz} planes: the product structuring element, so that x, y and z keep their own reach.
    */
   static boolean[] dilate(boolean[] set, int w, int h, int d, int rxy, int rz) {
     int n = set.length;
-    boolean[] in = set.clone();
-    int[] front = new int[n];
-    int size = 0;
-    for (int p = 0; p < n; p++) {
-      if (in[p]) {
-        front[size++] = p;
-      }
-    }
-    int[] next = new int[n];
-    for (int step = 0; step < rxy && size > 0; step++) {
-      int nextSize = 0;
-      for (int i = 0; i < size; i++) {
-        int p = front[i];
-        int x = p % w;
-        int y = p / w % h;
-        int[] around = {
-          x > 0 ? p - 1 : -1, x < w - 1 ? p + 1 : -1, y > 0 ? p - w : -1, y < h - 1 ? p + w : -1
-        };
-        for (int q : around) {
-          if (q >= 0 && !in[q]) {
-            in[q] = true;
-            next[nextSize++] = q;
-          }
-        }
-      }
-      int[] t = front;
-      front = next;
-      next = t;
-      size = nextSize;
-    }
+    boolean[] in = BoundaryBand.grow(set, w, h, d, rxy, false);
     if (rz == 0) {
       return in;
     }

@@ -109,8 +109,9 @@ public final class Illumination {
         flat[i] = (float) (values[i] - background[i] + mean);
       }
       out[c] = flat;
-      strength[c] = trendStrength(values, background, seeds);
-      kept[c] = seedContrast(flat, seeds) / seedContrast(values, seeds);
+      double contrast = seedContrast(values, seeds);
+      strength[c] = trendStrength(background, contrast);
+      kept[c] = seedContrast(flat, seeds) / contrast;
     }
     Raster flattened =
         new Raster(w, h, features.depth(), out, features.voxelSize(), features.kind());
@@ -148,8 +149,8 @@ public final class Illumination {
     return median(v, seeds, SeedLabels.BACKGROUND) > median(v, seeds, SeedLabels.FOREGROUND);
   }
 
-  private static double trendStrength(float[] values, float[] background, SeedLabels seeds) {
-    double contrast = seedContrast(values, seeds);
+  /** Spread of the background over the seed contrast {@code contrast}. */
+  private static double trendStrength(float[] background, double contrast) {
     // percentiles of a fixed-stride sample: the background is smooth, so 2^16 values are plenty,
     // and sorting all of a stack's voxels would cost more than the rolling ball itself
     int stride = Math.max(1, background.length / PERCENTILE_SAMPLES);

@@ -11,13 +11,14 @@ import java.util.Arrays;
 /**
  * The cut with iterated re-estimation of the likelihoods: cut with the given model, learn the
  * models again from the classes the cut assigned (seed voxels keep their own label), and cut again,
- * for a given number of rounds or until the mask no longer changes (Rother, Kolmogorov and Blake,
- * "GrabCut", ACM Trans. Graphics 23(3), 2004, doi:10.1145/1015706.1015720, iterative estimation). A
- * few short strokes show only part of the range of their class, for example only the brighter
- * nuclei of an unevenly stained field; re-learning from the first cut widens the class models to
- * everything the cut found, which lets the next cut take in the dimmer objects the strokes missed.
- * Voxels near the cut are left out of the re-learning ({@link #BAND}). Each round costs one model
- * fit and one re-solve of the same graph with new terminal capacities ({@link VolumeCut}).
+ * for a given number of rounds or until the mask no longer changes (the iterative estimation of
+ * Rother, Kolmogorov and Blake, "Interactive foreground extraction using iterated graph cuts", ACM
+ * Trans. Graphics 23(3), 2004, doi:10.1145/1015706.1015720). A few short strokes show only part of
+ * the range of their class, for example only the brighter nuclei of an unevenly stained field;
+ * re-learning from the first cut widens the class models to everything the cut found, which lets
+ * the next cut take in the dimmer objects the strokes missed. Voxels near the cut are left out of
+ * the re-learning ({@link #BAND}). Each round costs one model fit and one re-solve of the same
+ * graph with new terminal capacities ({@link VolumeCut}).
  *
  * <p><b>Class priors.</b> From the second cut on, the regional costs are negative log posteriors
  * rather than likelihoods: each class's cost gets {@code −ln π_c}, π_c its share of the voxels in
@@ -106,19 +107,7 @@ final class RefinedCut {
     for (int i = 0; i < mask.length; i++) {
       labels[i] = (byte) (mask[i] != 0 ? SeedLabels.FOREGROUND : SeedLabels.BACKGROUND);
     }
-    int w = seeds.width();
-    int h = seeds.height();
-    if (perPlane && seeds.depth() > 1) { // planes cut apart: the band must not cross planes
-      int plane = w * h;
-      for (int z = 0; z < seeds.depth(); z++) {
-        byte[] planeLabels = Arrays.copyOfRange(labels, z * plane, (z + 1) * plane);
-        byte[] planeMask = Arrays.copyOfRange(mask, z * plane, (z + 1) * plane);
-        BoundaryBand.clear(planeLabels, planeMask, w, h, 1, BAND);
-        System.arraycopy(planeLabels, 0, labels, z * plane, plane);
-      }
-    } else {
-      BoundaryBand.clear(labels, mask, w, h, seeds.depth(), BAND);
-    }
+    BoundaryBand.clear(labels, mask, seeds.width(), seeds.height(), seeds.depth(), BAND, perPlane);
     for (int i = 0; i < mask.length; i++) {
       if (seedLabels[i] != 0) {
         labels[i] = seedLabels[i];

@@ -67,7 +67,10 @@ public final class Segmenter {
    */
   public static SegmentationModel learn(
       Raster image, SeedLabels seeds, SegmentationSettings settings) {
-    return segment(image, seeds, settings).model();
+    Learned learned = learnWithFeatures(image, seeds, settings);
+    RefinedCut.Outcome refined =
+        refinedCut(learned.model, learned.calibrated, seeds, learned.features);
+    return learned.model.withLikelihood(refined.likelihood());
   }
 
   /**
@@ -208,19 +211,8 @@ public final class Segmenter {
       double learnMs,
       List<String> warnings) {
     SegmentationSettings settings = model.settings();
-    Neighborhood nb = SegmentInputs.neighborhood(image, settings);
-    EnergyParameters parameters =
-        new EnergyParameters(
-            settings.boundaryPenalty(), model.contrastScale(), nb, image.voxelSize());
-    RefinedCut.Outcome refined =
-        RefinedCut.run(
-            features,
-            seeds,
-            model.likelihood(),
-            settings.modelKind(),
-            settings.refinementRounds(),
-            settings.perPlane(),
-            parameters);
+    EnergyParameters parameters = energyParameters(model, image);
+    RefinedCut.Outcome refined = refinedCut(model, image, seeds, features);
     CutOutcome cut = refined.cut();
     CutOutcome edges =
         EdgeRefinement.refine(features, cut.mask, seeds, parameters, settings.perPlane());
@@ -266,6 +258,27 @@ public final class Segmenter {
             objectsMs,
             measureMs),
         warnings);
+  }
+
+  private static EnergyParameters energyParameters(SegmentationModel model, Raster image) {
+    SegmentationSettings settings = model.settings();
+    Neighborhood nb = SegmentInputs.neighborhood(image, settings);
+    return new EnergyParameters(
+        settings.boundaryPenalty(), model.contrastScale(), nb, image.voxelSize());
+  }
+
+  /** The cut of the model's refinement rounds on {@code image}. */
+  private static RefinedCut.Outcome refinedCut(
+      SegmentationModel model, Raster image, SeedLabels seeds, Raster features) {
+    SegmentationSettings settings = model.settings();
+    return RefinedCut.run(
+        features,
+        seeds,
+        model.likelihood(),
+        settings.modelKind(),
+        settings.refinementRounds(),
+        settings.perPlane(),
+        energyParameters(model, image));
   }
 
   /** The mask and flow of a cut with the time spent building and solving. */
