@@ -56,10 +56,9 @@ final class BoundaryArcs {
       channels[c] = features.channel(c);
     }
     int greyRange = channels.length == 1 ? integerRange(channels[0]) : -1;
-    int[] forward = new int[n];
-    int[] backward = new int[n];
+    int[] grey = null; // the one channel as ints, when tables by difference apply
+    int[] caps = new int[n];
     int[] sum = new int[n];
-    int[] row = new int[features.width()];
     double lastScale = Double.NaN;
     Object lastTable = null;
     for (int k = 0; k < nb.size(); k += 2) {
@@ -70,36 +69,97 @@ final class BoundaryArcs {
       }
       lastScale = scale;
       lastTable = table;
+      if (table instanceof int[] && grey == null) {
+        grey = toInts(channels[0]);
+      }
       Rows rows = new Rows(features, nb, k);
       int step = rows.step;
       for (int r = 0; r < rows.count; r++) {
         int from = rows.from(r);
         int to = from + rows.length;
         if (table instanceof int[] differences) {
-          greyRow(channels[0], differences, from, to, step, row);
+          greyRow(grey, differences, from, to, step, caps);
         } else if (table instanceof ExponentialSteps steps) {
-          stepsRow(channels, steps, inverseTwoSigmaSquared, from, to, step, row);
+          stepsRow(channels, steps, inverseTwoSigmaSquared, from, to, step, caps);
         } else {
-          directRow(channels, scale, inverseTwoSigmaSquared, from, to, step, row);
+          directRow(channels, scale, inverseTwoSigmaSquared, from, to, step, caps);
         }
-        for (int p = from, i = 0; p < to; p++, i++) {
-          int cap = row[i];
-          forward[p] = cap;
-          backward[p + step] = cap;
+        for (int p = from; p < to; p++) {
+          int cap = caps[p];
           sum[p] += cap;
           sum[p + step] += cap;
         }
       }
-      // The per-direction setter measured as fast as the interleaved one (which would need an
-      // array of n * K entries) on 1024 x 1024, 8-neighbourhood.
-      solver.setNeighborCapacities(k, forward);
-      solver.setNeighborCapacities(k ^ 1, backward);
+      solver.setSymmetricNeighborCapacities(k, caps);
     }
     int largest = 0;
     for (int s : sum) {
       largest = Math.max(largest, s);
     }
     return largest;
+  }
+
+  /**
+   * The capacities of single pairs, equal to those {@link #set} stores, for graphs over part of a
+   * grid: {@code between(p, k)} is the capacity between voxel {@code p} and its neighbour in
+   * direction {@code k}, which the caller guarantees to lie inside the grid. Built in O(n) (an int
+   * copy of a whole-number grey image) plus the tables; O(channels) per pair.
+   */
+  static final class PairCapacities {
+    private final float[][] channels;
+    private final int[] grey; // the one channel as ints when a table by difference applies
+    private final Object[] tables; // per direction: int[] by difference, steps, or null
+    private final double[] scales; // per direction, for the formula
+    private final int[] steps; // per direction: index offset of the neighbour
+    private final double inverseTwoSigmaSquared;
+
+    PairCapacities(Raster features, EnergyParameters parameters) {
+      Neighborhood nb = parameters.neighborhood();
+      double sigma = parameters.contrastScale();
+      inverseTwoSigmaSquared = 1.0 / (2 * sigma * sigma);
+      channels = new float[features.channelCount()][];
+      for (int c = 0; c < channels.length; c++) {
+        channels[c] = features.channel(c);
+      }
+      int greyRange = channels.length == 1 ? integerRange(channels[0]) : -1;
+      int budget = features.size() / 4;
+      tables = new Object[nb.size()];
+      scales = new double[nb.size()];
+      steps = new int[nb.size()];
+      int[] ints = null;
+      for (int k = 0; k < nb.size(); k += 2) {
+        double scale =
+            parameters.boundaryPenalty()
+                * parameters.lengthWeights()[k]
+                * CapacityScale.UNITS_PER_NAT;
+        Object table =
+            k > 0 && scale == scales[k - 2]
+                ? tables[k - 2]
+                : table(scale, inverseTwoSigmaSquared, greyRange, budget);
+        if (table instanceof int[] && ints == null) {
+          ints = toInts(channels[0]);
+        }
+        for (int j = k; j <= k + 1; j++) {
+          tables[j] = table;
+          scales[j] = scale;
+          steps[j] = nb.dx(j) + features.width() * (nb.dy(j) + features.height() * nb.dz(j));
+        }
+      }
+      grey = ints;
+    }
+
+    int between(int p, int k) {
+      int q = p + steps[k];
+      Object table = tables[k];
+      if (table instanceof int[] differences) {
+        int d = Math.abs(grey[p] - grey[q]);
+        return d < differences.length ? differences[d] : 0;
+      }
+      double exponent = squaredDifference(channels, p, q) * inverseTwoSigmaSquared;
+      return table instanceof ExponentialSteps s
+          ? s.capacity(exponent)
+          : capacity(scales[k], exponent);
+    }
   }
 
   /**
@@ -166,12 +226,21 @@ final class BoundaryArcs {
     return (int) max - (int) min;
   }
 
-  private static void greyRow(float[] v, int[] table, int from, int to, int step, int[] out) {
+  private static void greyRow(int[] v, int[] table, int from, int to, int step, int[] out) {
     int length = table.length;
     for (int p = from; p < to; p++) {
-      int d = Math.abs((int) v[p] - (int) v[p + step]);
-      out[p - from] = d < length ? table[d] : 0;
+      int d = Math.abs(v[p] - v[p + step]);
+      out[p] = d < length ? table[d] : 0;
     }
+  }
+
+  /** Whole-number floats as ints (see {@link #integerRange}). */
+  private static int[] toInts(float[] values) {
+    int[] out = new int[values.length];
+    for (int p = 0; p < values.length; p++) {
+      out[p] = (int) values[p];
+    }
+    return out;
   }
 
   private static void stepsRow(
@@ -186,12 +255,11 @@ final class BoundaryArcs {
       float[] v = channels[0];
       for (int p = from; p < to; p++) {
         double diff = (double) v[p] - v[p + step];
-        out[p - from] = steps.capacity(diff * diff * inverseTwoSigmaSquared);
+        out[p] = steps.capacity(diff * diff * inverseTwoSigmaSquared);
       }
     } else {
       for (int p = from; p < to; p++) {
-        out[p - from] =
-            steps.capacity(squaredDifference(channels, p, p + step) * inverseTwoSigmaSquared);
+        out[p] = steps.capacity(squaredDifference(channels, p, p + step) * inverseTwoSigmaSquared);
       }
     }
   }
@@ -205,8 +273,7 @@ final class BoundaryArcs {
       int step,
       int[] out) {
     for (int p = from; p < to; p++) {
-      out[p - from] =
-          capacity(scale, squaredDifference(channels, p, p + step) * inverseTwoSigmaSquared);
+      out[p] = capacity(scale, squaredDifference(channels, p, p + step) * inverseTwoSigmaSquared);
     }
   }
 

@@ -76,14 +76,7 @@ public final class CutProblem {
               seeds.size()));
     }
     Neighborhood nb = parameters.neighborhood();
-    if (nb.isThreeDimensional() != (features.depth() > 1)) {
-      throw new IllegalArgumentException(
-          "neighborhood "
-              + nb.size()
-              + " does not fit an image of "
-              + features.depth()
-              + " plane(s): use 4, 8 or 16 for a plane, 6, 18 or 26 for a stack");
-    }
+    checkFits(features, nb);
     GridMaxFlow solver =
         new GridMaxFlow(
             features.width(), features.height(), features.depth(), nb, retainCapacities);
@@ -106,6 +99,18 @@ public final class CutProblem {
     }
     solver.setTerminalCapacities(source, sink);
     return new CutProblem(solver, hard, source, sink, labels); // the solver copied the values
+  }
+
+  /** Throws unless {@code nb} is a 2D neighbourhood for a plane or a 3D one for a stack. */
+  static void checkFits(Raster features, Neighborhood nb) {
+    if (nb.isThreeDimensional() != (features.depth() > 1)) {
+      throw new IllegalArgumentException(
+          "neighborhood "
+              + nb.size()
+              + " does not fit an image of "
+              + features.depth()
+              + " plane(s): use 4, 8 or 16 for a plane, 6, 18 or 26 for a stack");
+    }
   }
 
   /**

@@ -432,6 +432,149 @@ public final class GridMaxFlow implements MaxFlowSolver {
   }
 
   /**
+   * Sets both arcs between every node and its neighbour in direction {@code k} to {@code
+   * caps[node]} (public node order): the arc in direction {@code k} and its reverse, the fast way
+   * to build a symmetric boundary term. Entries of nodes whose neighbour in direction {@code k}
+   * lies outside the grid are ignored. Only before the first solve. O(n), in memory order.
+   *
+   * @throws IllegalArgumentException if the array has the wrong length, or holds a negative value
+   *     or one above {@code Integer.MAX_VALUE / 2} (an arc and its reverse must fit the int range)
+   */
+  public void setSymmetricNeighborCapacities(int k, int[] caps) {
+    layout.checkDirection(k);
+    checkLength(caps, "capacities of direction " + k);
+    checkNotSolved();
+    GridLayout g = layout;
+    int dx = g.neighborhood.dx(k);
+    int dy = g.neighborhood.dy(k);
+    int dz = g.neighborhood.dz(k);
+    int x0 = Math.max(0, -dx);
+    int x1 = Math.min(g.width, g.width - dx);
+    int y0 = Math.max(0, -dy);
+    int y1 = Math.min(g.height, g.height - dy);
+    int z0 = Math.max(0, -dz);
+    int z1 = Math.min(g.depth, g.depth - dz);
+    int largest = 0;
+    for (int z = z0; z < z1; z++) {
+      for (int y = y0; y < y1; y++) {
+        int node = x0 + g.width * (y + g.height * z);
+        for (int x = x0; x < x1; x++, node++) {
+          int c = caps[node];
+          if (c < 0 || c > Integer.MAX_VALUE / 2) {
+            throw new IllegalArgumentException(
+                "capacity "
+                    + c
+                    + " of the arcs between node "
+                    + node
+                    + " and its neighbour in direction "
+                    + k
+                    + " must be between 0 and "
+                    + Integer.MAX_VALUE / 2);
+          }
+          largest = Math.max(largest, c);
+        }
+      }
+    }
+    if (capacity == null) {
+      fitResiduals(largest);
+    }
+    int forward = k;
+    int backward = offset[k] * directions + (k ^ 1) - k; // from arc (p, k) to (p + offset, k ^ 1)
+    for (int z = z0; z < z1; z++) {
+      for (int y = y0; y < y1; y++) {
+        int node = x0 + g.width * (y + g.height * z);
+        int a = g.padded(x0, y, z) * directions + forward;
+        int end = a + (x1 - x0) * directions;
+        if (capacity != null) {
+          for (; a < end; a += directions, node++) {
+            int c = caps[node];
+            capacity[a] = c;
+            capacity[a + backward] = c;
+          }
+        } else {
+          Residuals r = search.residual;
+          for (; a < end; a += directions, node++) {
+            int c = caps[node];
+            r.set(a, c);
+            r.set(a + backward, c);
+          }
+        }
+      }
+    }
+    generation++;
+  }
+
+  /**
+   * Sets every neighbour arc leaving the listed nodes at once: {@code caps[i * K + k]} is the
+   * capacity of the arc from {@code nodes[i]} in direction {@code k}, for {@code i < count}. Arcs
+   * of other nodes keep their capacities (zero on a new solver), so a graph over part of the grid
+   * is built in time proportional to that part. Entries of arcs leaving the grid are ignored. Only
+   * before the first solve.
+   *
+   * @throws IllegalArgumentException if a node is outside the grid, {@code caps} is shorter than
+   *     {@code count * K}, or a capacity is negative or above {@code Integer.MAX_VALUE / 2} (an arc
+   *     and its reverse must fit the int range)
+   */
+  public void setNeighborCapacitiesOf(int[] nodes, int count, int[] caps) {
+    if (count < 0 || count > nodes.length || caps.length < (long) count * directions) {
+      throw new IllegalArgumentException(
+          "neighbour capacities of "
+              + count
+              + " nodes need "
+              + (long) count * directions
+              + " values; got "
+              + caps.length
+              + " (and "
+              + nodes.length
+              + " nodes)");
+    }
+    checkNotSolved();
+    int largest = 0;
+    for (int i = 0; i < count * directions; i++) {
+      int c = caps[i];
+      if (c < 0 || c > Integer.MAX_VALUE / 2) {
+        throw new IllegalArgumentException(
+            "capacity "
+                + c
+                + " of arc ("
+                + nodes[i / directions]
+                + ", "
+                + i % directions
+                + ") must be between 0 and "
+                + Integer.MAX_VALUE / 2);
+      }
+      largest = Math.max(largest, c);
+    }
+    if (capacity == null) {
+      fitResiduals(largest);
+    }
+    GridLayout g = layout;
+    Neighborhood nb = g.neighborhood;
+    for (int i = 0; i < count; i++) {
+      int node = nodes[i];
+      g.checkNode(node);
+      int x = node % g.width;
+      int rest = node / g.width;
+      int y = rest % g.height;
+      int z = rest / g.height;
+      int a = g.padded(x, y, z) * directions;
+      boolean interior =
+          x >= g.reach
+              && x < g.width - g.reach
+              && y >= g.reach
+              && y < g.height - g.reach
+              && z >= g.reachZ
+              && z < g.depth - g.reachZ;
+      for (int k = 0; k < directions; k++) {
+        if (interior || inside(x + nb.dx(k), y + nb.dy(k), z + nb.dz(k))) {
+          store(a + k, caps[i * directions + k]);
+        }
+      }
+    }
+    generation++;
+  }
+
+  /**
    * Sets the capacities of every neighbour arc at once from an interleaved array: {@code caps[node
    * * K + k]} is the capacity of the arc from {@code node} in direction {@code k}, in public node
    * order. Entries of arcs leaving the grid are ignored. Only before the first solve.

@@ -3,7 +3,9 @@ package io.github.cleave.segment;
 /**
  * Sums over an axis-aligned box window ({@code 2rx+1 × 2ry+1 × 2rz+1} voxels, cut at the image
  * borders) at every voxel of a {@code w × h × d} grid, by running sums along one axis at a time
- * (the box is separable). O(n) per call whatever the window, in double precision along each line.
+ * (the box is separable). O(n) per call whatever the window. Along x each row is summed in double
+ * precision from its own prefix sums; along y and z whole rows are added and subtracted at once (a
+ * running sum of rows, in double precision), so that every pass reads memory in order.
  */
 final class BoxSums {
   private final int w;
@@ -28,31 +30,66 @@ final class BoxSums {
     for (int p = 0; p < values.length; p++) {
       out[p] = weights == null ? values[p] : values[p] * weights[p];
     }
-    axis(out, 1, w, rx);
-    axis(out, w, h, ry);
-    axis(out, w * h, d, rz);
+    alongX(out);
+    if (ry > 0 && h > 1) {
+      for (int z = 0; z < d; z++) {
+        acrossRows(out, z * w * h, w, h, ry);
+      }
+    }
+    if (rz > 0 && d > 1) {
+      acrossRows(out, 0, w * h, d, rz);
+    }
     return out;
   }
 
-  /** In place: each value becomes the sum of the values within {@code r} steps along one axis. */
-  private void axis(float[] a, int stride, int length, int r) {
-    if (r == 0 || length == 1) {
+  /** In place: each value becomes the sum of the values within {@code rx} steps along x. */
+  private void alongX(float[] a) {
+    if (rx == 0 || w == 1) {
       return;
     }
-    double[] line = new double[length + 1]; // prefix sums
-    int n = a.length;
-    for (int start = 0; start < n; start++) {
-      if ((start / stride) % length != 0) {
-        continue;
+    double[] prefix = new double[w + 1];
+    for (int start = 0; start < a.length; start += w) {
+      for (int i = 0; i < w; i++) {
+        prefix[i + 1] = prefix[i] + a[start + i];
       }
-      for (int i = 0; i < length; i++) {
-        line[i + 1] = line[i] + a[start + i * stride];
+      for (int i = 0; i < w; i++) {
+        a[start + i] = (float) (prefix[Math.min(w, i + rx + 1)] - prefix[Math.max(0, i - rx)]);
       }
-      for (int i = 0; i < length; i++) {
-        int lo = Math.max(0, i - r);
-        int hi = Math.min(length - 1, i + r);
-        a[start + i * stride] = (float) (line[hi + 1] - line[lo]);
+    }
+  }
+
+  /**
+   * In place over {@code count} consecutive rows of {@code rowLength} values from {@code start}:
+   * each value becomes the sum of the values in the same column of the rows within {@code r} rows.
+   * A running sum of rows: the window's sum moves from row to row by adding the row entering it and
+   * subtracting the row leaving it (both read from a copy of the original rows).
+   */
+  private static void acrossRows(float[] a, int start, int rowLength, int count, int r) {
+    float[] original = new float[rowLength * count];
+    System.arraycopy(a, start, original, 0, original.length);
+    double[] window = new double[rowLength];
+    for (int row = 0; row < Math.min(r, count); row++) {
+      add(window, original, row * rowLength, 1);
+    }
+    for (int row = 0; row < count; row++) {
+      int entering = row + r;
+      if (entering < count) {
+        add(window, original, entering * rowLength, 1);
       }
+      int leaving = row - r - 1;
+      if (leaving >= 0) {
+        add(window, original, leaving * rowLength, -1);
+      }
+      int base = start + row * rowLength;
+      for (int i = 0; i < rowLength; i++) {
+        a[base + i] = (float) window[i];
+      }
+    }
+  }
+
+  private static void add(double[] window, float[] rows, int from, int sign) {
+    for (int i = 0; i < window.length; i++) {
+      window[i] += sign * rows[from + i];
     }
   }
 }

@@ -1,9 +1,13 @@
 package io.github.cleave.segment;
 
 import io.github.cleave.energy.EnergyParameters;
+import io.github.cleave.energy.FixedLabelCut;
+import io.github.cleave.flow.MaxFlowResult;
+import io.github.cleave.flow.SolveStatus;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import java.util.Arrays;
+import java.util.concurrent.CancellationException;
 
 /**
  * Places the edges of a finished cut at half maximum: one more cut in a thin band around the cut's
@@ -40,13 +44,14 @@ import java.util.Arrays;
  *       from their local levels.
  *   <li>Costs in the band: {@code D_p(c) = Σ_channels (I_p − μ_c)² / 2s²}, minus the smaller of the
  *       two (only the difference matters). Outside the band, and in band voxels that reach no
- *       interior or no ring voxel, the labels of the cut are hard constraints, and so are the
- *       seeds. The cut is made once more with the same boundary term ({@code CutProblem}), so the
- *       new edges stay smooth.
+ *       interior or no ring voxel, the labels of the cut are fixed, and so are the seeds. The band
+ *       is cut once more with the same boundary term, on a graph of its own voxels ({@code
+ *       FixedLabelCut}: the boundary with fixed neighbours becomes a terminal capacity), so the new
+ *       edges stay smooth and the work stays within the band.
  * </ol>
  *
  * <p>Invariants: only band voxels can change; seeds keep their labels. Cost: O(n · (BAND + RING +
- * WINDOW)) for the band, levels and searches, plus one build and solve of the grid graph. Memory:
+ * WINDOW)) for the band, levels and searches, plus one build and solve of the band's graph. Memory:
  * about ten arrays of n ints or floats. Stateless and thread-safe.
  */
 final class EdgeRefinement {
@@ -66,7 +71,7 @@ final class EdgeRefinement {
 
   /**
    * The cut with its edges re-decided. The flow of the returned outcome is that of the edge cut
-   * alone (the hard constraints outside the band contribute nothing to it).
+   * alone (the boundary between fixed voxels outside the band is not counted).
    *
    * @param features the driving channels, as cut
    * @param mask the cut, 255 foreground, 0 background
@@ -132,9 +137,24 @@ final class EdgeRefinement {
       costs[1][p] = (float) (bg - min);
     }
     SeedLabels constraints = new SeedLabels(w, h, d, hard);
+    PlaneCuts.Cutter cutter = (f, c, fixed) -> cutFree(f, c, fixed, parameters);
     return planes
-        ? PlaneCuts.cutEachPlane(features, costs, constraints, parameters)
-        : Segmenter.cutVolume(features, costs, constraints, parameters);
+        ? PlaneCuts.cutEachPlane(features, costs, constraints, cutter)
+        : cutter.cut(features, costs, constraints);
+  }
+
+  /** The cut of the voxels that {@code fixed} leaves free (0), the others keeping their labels. */
+  private static Segmenter.CutOutcome cutFree(
+      Raster features, float[][] costs, SeedLabels fixed, EnergyParameters parameters) {
+    long start = System.nanoTime();
+    FixedLabelCut problem = FixedLabelCut.build(features, costs[0], costs[1], fixed, parameters);
+    double buildMs = Segmenter.millisSince(start);
+    MaxFlowResult result = problem.solve();
+    if (result.status() == SolveStatus.INTERRUPTED) {
+      throw new CancellationException("segmentation interrupted");
+    }
+    return new Segmenter.CutOutcome(
+        problem.mask(result), result.flowValue(), buildMs, result.solveNanos() / 1e6);
   }
 
   /** Local object and background levels per channel, and the shared variance per channel. */

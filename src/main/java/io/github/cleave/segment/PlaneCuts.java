@@ -13,8 +13,20 @@ import java.util.Arrays;
 final class PlaneCuts {
   private PlaneCuts() {}
 
+  /** How one plane (or a whole volume) is cut. */
+  interface Cutter {
+    Segmenter.CutOutcome cut(Raster features, float[][] costs, SeedLabels seeds);
+  }
+
   static Segmenter.CutOutcome cutEachPlane(
       Raster features, float[][] costs, SeedLabels seeds, EnergyParameters parameters) {
+    return cutEachPlane(
+        features, costs, seeds, (f, c, s) -> Segmenter.cutVolume(f, c, s, parameters));
+  }
+
+  /** Each plane cut by {@code cutter}, with the plane's features, costs and labels. */
+  static Segmenter.CutOutcome cutEachPlane(
+      Raster features, float[][] costs, SeedLabels seeds, Cutter cutter) {
     int w = features.width();
     int h = features.height();
     int plane = w * h;
@@ -35,8 +47,7 @@ final class PlaneCuts {
         planeCosts[k] = Arrays.copyOfRange(costs[k], from, to);
       }
       SeedLabels planeSeeds = new SeedLabels(w, h, 1, Arrays.copyOfRange(seeds.labels(), from, to));
-      Segmenter.CutOutcome cut =
-          Segmenter.cutVolume(planeFeatures, planeCosts, planeSeeds, parameters);
+      Segmenter.CutOutcome cut = cutter.cut(planeFeatures, planeCosts, planeSeeds);
       System.arraycopy(cut.mask(), 0, mask, from, plane);
       flow += cut.flow();
       buildMs += cut.buildMs();
