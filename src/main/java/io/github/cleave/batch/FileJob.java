@@ -22,12 +22,13 @@ import java.util.concurrent.CancellationException;
 import java.util.function.BooleanSupplier;
 
 /**
- * One file of a folder run, isolated: keeps complete outputs of an earlier run (unless
- * overwriting), otherwise reserves the heap the image needs, reads it and its seeds, applies the
- * model and writes the image's outputs (overlay with the run's display ranges). Any failure of the
- * file (unreadable, corrupt, wrong channels, too large, seeds that do not fit, a write error, even
- * an unexpected error) becomes a failed {@link FileOutcome} and removes a stale record, so the run
- * goes on; only cancellation propagates.
+ * One file of a folder run, isolated (messages name the file by its path relative to the input
+ * folder): keeps complete outputs of an earlier run (unless overwriting), otherwise reserves the
+ * heap the image needs, reads it and its seeds, applies the model and writes the image's outputs
+ * (overlay with the run's display ranges). Any failure of the file (unreadable, corrupt, wrong
+ * channels, too large, seeds that do not fit, a write error, even an unexpected error) becomes a
+ * failed {@link FileOutcome} and removes a stale record, so the run goes on; only cancellation
+ * propagates.
  */
 final class FileJob {
   /** A file's outcome and its contact-sheet thumbnail (null if failed or not shown). */
@@ -131,7 +132,10 @@ final class FileJob {
       // the record names another model or image, so a rerun does not trust it anyway
     }
     double ms = (System.nanoTime() - start) / 1e6;
-    String oneLine = message == null ? "unknown reason" : message.replace('\n', ' ').strip();
+    String oneLine =
+        message == null
+            ? "unknown reason"
+            : message.replace(f.path().toString(), f.relative()).replace('\n', ' ').strip();
     return new Done(new FileOutcome(f.relative(), Status.FAILED, oneLine, -1, ms, false), null);
   }
 
