@@ -21,10 +21,11 @@ import java.util.Map;
  *
  * <p>A file is taken when it is a regular file, its name does not start with a dot (hidden files
  * and the {@code ._NAME} resource forks some file systems add), it is not a seed file ({@code
- * NAME.seeds.*}), and the pattern matches its lower-cased name (or, for a pattern with {@code /},
- * its lower-cased path relative to the input folder). With {@code recursive}, subfolders are
- * searched too, except hidden ones and the output folder. Files are sorted by relative path as
- * strings, so the order, and with it every folder output, is the same whatever the thread count.
+ * NAME.seeds.*}) or a reference mask of the samples ({@code NAME.truth.*}), and the pattern matches
+ * its lower-cased name (or, for a pattern with {@code /}, its lower-cased path relative to the
+ * input folder). With {@code recursive}, subfolders are searched too, except hidden ones and the
+ * output folder. Files are sorted by relative path as strings, so the order, and with it every
+ * folder output, is the same whatever the thread count.
  *
  * <p>Refused with a {@link BadInputException}, before any file is written: a missing input folder,
  * an output folder that is the input folder or a file, a missing seeds folder, an invalid pattern,
@@ -101,7 +102,10 @@ final class InputScan {
           public FileVisitResult visitFile(Path file, BasicFileAttributes attrs) {
             String name = file.getFileName().toString();
             String lower = name.toLowerCase(Locale.ROOT);
-            if (!attrs.isRegularFile() || lower.startsWith(".") || lower.contains(".seeds.")) {
+            if (!attrs.isRegularFile()
+                || lower.startsWith(".")
+                || lower.contains(".seeds.")
+                || lower.contains(".truth.")) {
               return FileVisitResult.CONTINUE;
             }
             Path rel = in.relativize(file);
@@ -130,7 +134,7 @@ final class InputScan {
               + "' in "
               + s.in()
               + (s.recursive() ? " or its subfolders" : " (add --recursive for subfolders)")
-              + "; hidden files and NAME.seeds.* files are not inputs");
+              + "; hidden, NAME.seeds.* and NAME.truth.* files are not inputs");
     }
     files.sort((a, b) -> a.relative().compareTo(b.relative()));
     checkClashes(files);

@@ -27,7 +27,7 @@ import picocli.CommandLine.Spec;
           + " (every object, with its file), contact-sheet.png (thumbnails with contours, failed"
           + " files marked, one display range per channel for the whole run) and, last, run.json.",
       "Seeds: NAME.seeds.tif|png|zip from --seeds (or beside the image) act as fixed marks.",
-      "Skipped: hidden files and ._NAME files, NAME.seeds.* files. A file that cannot be"
+      "Skipped: hidden files and ._NAME files, NAME.seeds.* and NAME.truth.* files. A file that cannot be"
           + " segmented (corrupt, unreadable, other channels than the model's, too large for the"
           + " heap) is reported in files.csv and the run goes on.",
       "Resume: a rerun keeps files whose outputs are complete (same model, image and seeds) and"
