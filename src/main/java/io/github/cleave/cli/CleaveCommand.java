@@ -25,6 +25,7 @@ import picocli.CommandLine.Command;
       SegmentCommand.class,
       LearnCommand.class,
       ApplyCommand.class,
+      BatchCommand.class,
       DemoCommand.class,
       MakeSamplesCommand.class,
       MaxflowCommand.class,

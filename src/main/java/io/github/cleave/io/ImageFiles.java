@@ -53,6 +53,16 @@ public final class ImageFiles {
   }
 
   /**
+   * The heap that reading and segmenting {@code file} will need, estimated from its header without
+   * reading the pixels (the estimate {@link #read} checks against the free heap), or -1 when the
+   * header cannot tell: a zipped TIFF, or a file that is missing, empty or unreadable ({@link
+   * #read} then says what is wrong). Never throws for a bad file.
+   */
+  public static long estimateHeapBytes(Path file) {
+    return ImageOpening.bytesNeeded(file);
+  }
+
+  /**
    * Converts an image already open in ImageJ (for the plugin). {@code name} is used in messages and
    * as the title when the image has none; the source path is the image's original file if ImageJ
    * knows it.

@@ -129,21 +129,59 @@ final class ImageOpening {
     FileInfo first = infos[0];
     String description = first.description == null ? "" : first.description;
     checkTimePoints(name, role, intIn(FRAMES, description, 1));
-    int channels = intIn(CHANNELS, description, 1);
-    int samples = first.samplesPerPixel >= 3 ? 3 : 1;
-    long needed =
-        MemoryEstimate.bytesNeeded(
-            first.width,
-            first.height,
-            planes,
-            channels,
-            Math.max(1, first.getBytesPerPixel()),
-            samples);
+    long needed = tiffBytesNeeded(infos);
     MemoryEstimate.check(
         name,
         first.width + " x " + first.height + " x " + planes + " planes",
         needed,
-        MemoryEstimate.available());
+        MemoryEstimate.availableFor(needed));
+  }
+
+  /** The heap estimate of a TIFF from its image entries ({@link MemoryEstimate}). */
+  private static long tiffBytesNeeded(FileInfo[] infos) {
+    long planes = 0;
+    for (FileInfo fi : infos) {
+      planes += Math.max(1, fi.nImages);
+    }
+    FileInfo first = infos[0];
+    String description = first.description == null ? "" : first.description;
+    int channels = intIn(CHANNELS, description, 1);
+    int samples = first.samplesPerPixel >= 3 ? 3 : 1;
+    return MemoryEstimate.bytesNeeded(
+        first.width,
+        first.height,
+        planes,
+        channels,
+        Math.max(1, first.getBytesPerPixel()),
+        samples);
+  }
+
+  /**
+   * The heap {@link #open} and a segmentation of the image will need, from the file's header only,
+   * or -1 when the header cannot tell (a zip, an unreadable or unknown file: opening it then fails
+   * or checks after reading).
+   */
+  static long bytesNeeded(Path file) {
+    String lower = file.getFileName().toString().toLowerCase(Locale.ROOT);
+    try {
+      if (!Files.isRegularFile(file) || Files.size(file) == 0) {
+        return -1;
+      }
+      if (lower.endsWith(".tif") || lower.endsWith(".tiff")) {
+        FileInfo[] infos = Opener.getTiffFileInfo(file.toAbsolutePath().toString());
+        if (infos == null || infos.length == 0 || infos[0].width < 1 || infos[0].height < 1) {
+          return -1;
+        }
+        return tiffBytesNeeded(infos);
+      }
+      if (lower.endsWith(".png")) {
+        int[] size = pngSize(file);
+        return MemoryEstimate.bytesNeeded(size[0], size[1], 1, 1, 4, 3);
+      }
+    } catch (IOException | RuntimeException | LinkageError e) {
+      return -1;
+    }
+    return -1;
   }
 
   /** End of the last pixel byte an uncompressed or stripped TIFF image entry refers to. */
@@ -168,6 +206,21 @@ final class ImageOpening {
     String name = file.toString();
     int width;
     int height;
+    try {
+      int[] size = pngSize(file);
+      width = size[0];
+      height = size[1];
+    } catch (IOException | RuntimeException e) {
+      throw new BadInputException(
+          role + " file " + name + " is not a readable PNG (corrupt, or not a PNG file)", e);
+    }
+    // Worst case: ImageJ keeps colour PNGs as 4-byte RGB pixels.
+    long needed = MemoryEstimate.bytesNeeded(width, height, 1, 1, 4, 3);
+    MemoryEstimate.check(name, width + " x " + height, needed, MemoryEstimate.availableFor(needed));
+  }
+
+  /** Width and height from a PNG's header. */
+  private static int[] pngSize(Path file) throws IOException {
     try (ImageInputStream in = ImageIO.createImageInputStream(file.toFile())) {
       Iterator<ImageReader> readers = in == null ? null : ImageIO.getImageReaders(in);
       if (readers == null || !readers.hasNext()) {
@@ -176,21 +229,11 @@ final class ImageOpening {
       ImageReader reader = readers.next();
       try {
         reader.setInput(in);
-        width = reader.getWidth(0);
-        height = reader.getHeight(0);
+        return new int[] {reader.getWidth(0), reader.getHeight(0)};
       } finally {
         reader.dispose();
       }
-    } catch (IOException | RuntimeException e) {
-      throw new BadInputException(
-          role + " file " + name + " is not a readable PNG (corrupt, or not a PNG file)", e);
     }
-    // Worst case: ImageJ keeps colour PNGs as 4-byte RGB pixels.
-    MemoryEstimate.check(
-        name,
-        width + " x " + height,
-        MemoryEstimate.bytesNeeded(width, height, 1, 1, 4, 3),
-        MemoryEstimate.available());
   }
 
   private static int intIn(Pattern pattern, String text, int fallback) {

@@ -41,6 +41,20 @@ final class MemoryEstimate {
   }
 
   /**
+   * Heap not yet used; if that is less than {@code needed}, after one request to collect garbage
+   * first, so that garbage left by other threads (a folder run reads images in parallel) does not
+   * make an image that fits look too large.
+   */
+  static long availableFor(long needed) {
+    long free = available();
+    if (free >= needed) {
+      return free;
+    }
+    System.gc();
+    return available();
+  }
+
+  /**
    * @throws BadInputException if {@code needed} exceeds {@code available}, saying how much is
    *     needed and which {@code -Xmx} would do
    */

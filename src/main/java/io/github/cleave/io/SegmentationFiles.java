@@ -5,8 +5,10 @@ import io.github.cleave.image.PixelKind;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.objects.RoiExport;
+import io.github.cleave.render.DisplayRange;
 import io.github.cleave.render.OverlayPicture;
 import io.github.cleave.segment.Segmentation;
+import io.github.cleave.segment.SegmentationModel;
 import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -92,6 +94,27 @@ public final class SegmentationFiles {
       Inputs inputs,
       String command)
       throws IOException {
+    return write(outDir, name, image, seeds, result, inputs, command, null);
+  }
+
+  /**
+   * Writes every output as {@link #write(Path, String, LoadedImage, SeedLabels, Segmentation,
+   * Inputs, String)} does, drawing the overlay with the given display ranges (one per channel of
+   * {@link #displayChannels}), so that the pictures of a folder run compare.
+   *
+   * @param ranges display ranges for the overlay, or {@code null} to compute them from the image
+   * @return the overlay picture written, for contact sheets
+   */
+  public static BufferedImage write(
+      Path outDir,
+      String name,
+      LoadedImage image,
+      SeedLabels seeds,
+      Segmentation result,
+      Inputs inputs,
+      String command,
+      DisplayRange[] ranges)
+      throws IOException {
     Raster raster = image.raster();
     List<Path> protectedFiles = inputList(inputs);
     int w = raster.width();
@@ -124,7 +147,7 @@ public final class SegmentationFiles {
         OverlayPicture.render(
             raster,
             displayChannels(raster, result),
-            null,
+            ranges,
             result.mask(),
             result.objects().labels(),
             seeds);
@@ -136,10 +159,15 @@ public final class SegmentationFiles {
 
   /** The channels shown in pictures: RGB as colour, otherwise the driving channels. */
   public static int[] displayChannels(Raster raster, Segmentation result) {
+    return displayChannels(raster, result.model());
+  }
+
+  /** The channels shown in pictures of {@code raster} segmented with {@code model}. */
+  public static int[] displayChannels(Raster raster, SegmentationModel model) {
     if (raster.kind() == PixelKind.RGB) {
       return new int[] {0, 1, 2};
     }
-    int[] driving = result.model().settings().drivingChannels();
+    int[] driving = model.settings().drivingChannels();
     return driving != null ? driving : new int[] {0};
   }
 

@@ -1,0 +1,162 @@
+package io.github.cleave.batch;
+
+import io.github.cleave.image.BadInputException;
+import io.github.cleave.io.SegmentationFiles;
+import java.io.IOException;
+import java.nio.file.FileSystems;
+import java.nio.file.FileVisitResult;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.PathMatcher;
+import java.nio.file.SimpleFileVisitor;
+import java.nio.file.attribute.BasicFileAttributes;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+
+/**
+ * Finds the files of a folder run and checks the folders before anything is written.
+ *
+ * <p>A file is taken when it is a regular file, its name does not start with a dot (hidden files
+ * and the {@code ._NAME} resource forks some file systems add), it is not a seed file ({@code
+ * NAME.seeds.*}) or a reference mask of the samples ({@code NAME.truth.*}), and the pattern matches
+ * its lower-cased name (or, for a pattern with {@code /}, its lower-cased path relative to the
+ * input folder). With {@code recursive}, subfolders are searched too, except hidden ones and the
+ * output folder. Files are sorted by relative path as strings, so the order, and with it every
+ * folder output, is the same whatever the thread count.
+ *
+ * <p>Refused with a {@link BadInputException}, before any file is written: a missing input folder,
+ * an output folder that is the input folder or a file, a missing seeds folder, an invalid pattern,
+ * no matching file, and two inputs in one folder with the same name before the extension (their
+ * outputs would have the same names).
+ */
+final class InputScan {
+  private InputScan() {}
+
+  /** One input of the run. */
+  record InputFile(Path path, String relative, String folder, String baseName) {
+    /** The folder of this file's outputs. */
+    Path outDir(Path out) {
+      return folder.isEmpty() ? out : out.resolve(folder);
+    }
+
+    /** The folder searched first for this file's seeds, or null. */
+    Path seedsDir(Path seeds) {
+      if (seeds == null) {
+        return null;
+      }
+      return folder.isEmpty() ? seeds : seeds.resolve(folder);
+    }
+  }
+
+  static List<InputFile> scan(BatchSettings s) throws IOException {
+    Path in = s.in().toAbsolutePath().normalize();
+    Path out = s.out().toAbsolutePath().normalize();
+    if (!Files.isDirectory(in)) {
+      throw new BadInputException(
+          "the input folder " + s.in() + " does not exist or is not a folder; give --in FOLDER");
+    }
+    if (Files.exists(out) && !Files.isDirectory(out)) {
+      throw new BadInputException(
+          "the output " + s.out() + " is a file, not a folder: give a folder for the results");
+    }
+    if (out.equals(in) || (Files.exists(out) && Files.isSameFile(out, in))) {
+      throw new BadInputException(
+          "the output folder "
+              + s.out()
+              + " is the input folder: choose another output folder so that inputs are never"
+              + " overwritten");
+    }
+    if (s.seeds() != null && !Files.isDirectory(s.seeds())) {
+      throw new BadInputException(
+          "the seeds folder " + s.seeds() + " does not exist or is not a folder");
+    }
+    String pattern = s.pattern();
+    PathMatcher matcher;
+    try {
+      matcher = FileSystems.getDefault().getPathMatcher("glob:" + pattern.toLowerCase(Locale.ROOT));
+    } catch (IllegalArgumentException e) {
+      throw new BadInputException(
+          "the pattern '" + pattern + "' is not a valid glob (" + e.getMessage() + "); try *.tif");
+    }
+    boolean byPath = pattern.contains("/");
+    List<InputFile> files = new ArrayList<>();
+    Files.walkFileTree(
+        in,
+        new SimpleFileVisitor<>() {
+          @Override
+          public FileVisitResult preVisitDirectory(Path dir, BasicFileAttributes attrs) {
+            if (dir.equals(in)) {
+              return FileVisitResult.CONTINUE;
+            }
+            boolean skip =
+                !s.recursive()
+                    || dir.getFileName().toString().startsWith(".")
+                    || dir.toAbsolutePath().normalize().equals(out);
+            return skip ? FileVisitResult.SKIP_SUBTREE : FileVisitResult.CONTINUE;
+          }
+
+          @Override
+          public FileVisitResult visitFile(Path file, BasicFileAttributes attrs) {
+            String name = file.getFileName().toString();
+            String lower = name.toLowerCase(Locale.ROOT);
+            if (!attrs.isRegularFile()
+                || lower.startsWith(".")
+                || lower.contains(".seeds.")
+                || lower.contains(".truth.")) {
+              return FileVisitResult.CONTINUE;
+            }
+            Path rel = in.relativize(file);
+            String relative = rel.toString().replace(rel.getFileSystem().getSeparator(), "/");
+            Path test = byPath ? Path.of(relative.toLowerCase(Locale.ROOT)) : Path.of(lower);
+            if (matcher.matches(test)) {
+              Path parent = rel.getParent();
+              String folder =
+                  parent == null
+                      ? ""
+                      : parent.toString().replace(rel.getFileSystem().getSeparator(), "/");
+              files.add(new InputFile(file, relative, folder, SegmentationFiles.baseName(file)));
+            }
+            return FileVisitResult.CONTINUE;
+          }
+
+          @Override
+          public FileVisitResult visitFileFailed(Path file, IOException e) {
+            return FileVisitResult.CONTINUE; // an unreadable entry is not an input
+          }
+        });
+    if (files.isEmpty()) {
+      throw new BadInputException(
+          "no file matching '"
+              + pattern
+              + "' in "
+              + s.in()
+              + (s.recursive() ? " or its subfolders" : " (add --recursive for subfolders)")
+              + "; hidden, NAME.seeds.* and NAME.truth.* files are not inputs");
+    }
+    files.sort((a, b) -> a.relative().compareTo(b.relative()));
+    checkClashes(files);
+    return files;
+  }
+
+  /** Two inputs of one folder whose outputs would share names (compared ignoring case). */
+  private static void checkClashes(List<InputFile> files) {
+    Map<String, InputFile> seen = new HashMap<>();
+    for (InputFile f : files) {
+      String key = (f.folder() + "/" + f.baseName()).toLowerCase(Locale.ROOT);
+      InputFile other = seen.putIfAbsent(key, f);
+      if (other != null) {
+        throw new BadInputException(
+            "the inputs "
+                + other.relative()
+                + " and "
+                + f.relative()
+                + " would write outputs of the same names ("
+                + f.baseName()
+                + ".mask.tif, ...): rename one, move it to another folder, or narrow --pattern");
+      }
+    }
+  }
+}
