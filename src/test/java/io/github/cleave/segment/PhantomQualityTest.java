@@ -26,12 +26,15 @@ import org.junit.jupiter.api.Test;
  * <p>The goal is Dice ≥ 0.95 and F1 ≥ 0.9 on every phantom. It is NOT reached everywhere: the
  * floors below are the levels measured with the current defaults, less a small margin, and are
  * asserted as they are so that a regression shows. Measured at the default seed: nuclei Dice 0.946
- * / F1 0.962, stained 0.981 / 1.000, two-channel 0.953 / 0.914, stack 0.890 / 0.917 (before the
+ * / F1 0.962, stained 0.981 / 1.000, two-channel 0.953 / 0.914, stack 0.914 / 0.880 (before the
  * half-maximum edge placement of {@code EdgeRefinement}: 0.907 / 0.883, 0.951 / 1.000, 0.931 /
- * 0.914, 0.831 / 0.917). The remaining error is mostly dim objects found only in part or not at
- * all, and, in the stack, the blur along z (σ = 1.5 planes on objects about 9 planes thick): there
- * the truth reaches beyond the half-maximum contour of the noise-free image (about 9 % of the
- * truth's voxels lie outside it), so a cut at half maximum cannot reach Dice 0.95.
+ * 0.914, and the stack of the earlier recipe 0.831 / 0.917). The remaining error is mostly dim
+ * objects found only in part or not at all (nuclei at 0.15 illumination and 0.35 brightness), edges
+ * of dim objects placed up to a pixel inside (their local background level is raised by the halo of
+ * a bright neighbour), and, in the stack, the top and bottom caps of the objects, thin along z, cut
+ * off (about 70 % of the stack's missing voxels lie in columns the mask covers in other planes).
+ * Every truth is reachable in principle: {@code SamplePhantomsTest} requires the half-maximum
+ * contour of the noise-free blurred truth to agree at Dice ≥ 0.97.
  */
 class PhantomQualityTest {
   private static final List<Phantom> PHANTOMS = SamplePhantoms.all(SamplePhantoms.DEFAULT_SEED);
@@ -42,7 +45,7 @@ class PhantomQualityTest {
           "nuclei", new double[] {0.94, 0.95}, // Dice goal missed (0.946 / 0.962)
           "stained", new double[] {0.975, 0.95}, // goal reached (0.981 / 1.000)
           "two-channel", new double[] {0.95, 0.90}, // goal reached (0.953 / 0.914)
-          "stack", new double[] {0.88, 0.90}); // Dice goal missed (0.890 / 0.917)
+          "stack", new double[] {0.905, 0.85}); // both goals missed (0.914 / 0.880)
 
   @Test
   void otsuMissesEveryPhantom() {
