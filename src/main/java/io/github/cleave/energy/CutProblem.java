@@ -133,18 +133,20 @@ public final class CutProblem {
               backgroundCost.length,
               n));
     }
+    int[] sourceDelta = new int[n];
+    int[] sinkDelta = new int[n];
     for (int p = 0; p < n; p++) {
       if (seedLabels[p] == SeedLabels.FOREGROUND || seedLabels[p] == SeedLabels.BACKGROUND) {
         continue;
       }
       int cs = CapacityScale.toCapacity(backgroundCost[p]);
       int ct = CapacityScale.toCapacity(foregroundCost[p]);
-      if (cs != source[p] || ct != sink[p]) {
-        solver.addTerminalCapacities(p, (long) cs - source[p], (long) ct - sink[p]);
-        source[p] = cs;
-        sink[p] = ct;
-      }
+      sourceDelta[p] = cs - source[p]; // both within 0 .. Integer.MAX_VALUE: no overflow
+      sinkDelta[p] = ct - sink[p];
+      source[p] = cs;
+      sink[p] = ct;
     }
+    solver.addTerminalCapacities(sourceDelta, sinkDelta);
   }
 
   /**

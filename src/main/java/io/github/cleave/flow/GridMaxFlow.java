@@ -214,6 +214,45 @@ public final class GridMaxFlow implements MaxFlowSolver {
   }
 
   /**
+   * {@link #addTerminalCapacities(int, long, long)} for every node at once, in node order: adds
+   * {@code sourceDelta[node]} and {@code sinkDelta[node]}; nodes with both deltas 0 are skipped.
+   * The same result as the calls one by one, without their per-call index arithmetic.
+   *
+   * @throws IllegalArgumentException if an array has the wrong length or a capacity would leave
+   *     {@code 0 .. Integer.MAX_VALUE} (nodes before the offending one keep their change)
+   */
+  public void addTerminalCapacities(int[] sourceDelta, int[] sinkDelta) {
+    checkLength(sourceDelta, "source capacity changes");
+    checkLength(sinkDelta, "sink capacity changes");
+    GridLayout g = layout;
+    int node = 0;
+    for (int z = 0; z < g.depth; z++) {
+      for (int y = 0; y < g.height; y++) {
+        int p = g.padded(0, y, z);
+        for (int x = 0; x < g.width; x++, p++, node++) {
+          int ds = sourceDelta[node];
+          int dt = sinkDelta[node];
+          if ((ds | dt) == 0) {
+            continue;
+          }
+          if (capacity != null) {
+            long cs = sourceCapacity[p] + (long) ds;
+            long ct = sinkCapacity[p] + (long) dt;
+            checkCapacity(cs, "source capacity of node " + node);
+            checkCapacity(ct, "sink capacity of node " + node);
+            sourceCapacity[p] = (int) cs;
+            sinkCapacity[p] = (int) ct;
+          }
+          if (capacity == null || solved) {
+            absorbTerminalChange(p, ds, dt);
+          }
+        }
+      }
+    }
+    generation++;
+  }
+
+  /**
    * Sets the terminal capacities of a node, replacing earlier ones (retained capacities only).
    * After a solve the change is applied to the present flow for {@link #resolve()}.
    */

@@ -80,6 +80,46 @@ class GridBulkSettersTest {
   }
 
   @Test
+  void bulkTerminalChangesAfterASolveEqualChangesOneByOne() {
+    SplittableRandom random = new SplittableRandom(99L);
+    for (int trial = 0; trial < 120; trial++) {
+      Neighborhood nb = ALL[trial % ALL.length];
+      int w = 1 + random.nextInt(12);
+      int h = 1 + random.nextInt(12);
+      int d = nb.isThreeDimensional() ? 1 + random.nextInt(5) : 1;
+      int n = w * h * d;
+      boolean retain = random.nextBoolean();
+      GridMaxFlow bulk = new GridMaxFlow(w, h, d, nb, retain);
+      GridMaxFlow single = new GridMaxFlow(w, h, d, nb, retain);
+      for (int k = 0; k < nb.size(); k += 2) {
+        int[] caps = new int[n];
+        for (int p = 0; p < n; p++) {
+          caps[p] = random.nextInt(50);
+        }
+        bulk.setSymmetricNeighborCapacities(k, caps);
+        single.setSymmetricNeighborCapacities(k, caps);
+      }
+      terminals(random, n, bulk, single);
+      bulk.solve();
+      single.solve();
+      int[] sourceDelta = new int[n];
+      int[] sinkDelta = new int[n];
+      for (int p = 0; p < n; p++) {
+        if (random.nextInt(3) == 0) {
+          sourceDelta[p] = random.nextInt(40);
+          sinkDelta[p] = random.nextInt(40);
+          single.addTerminalCapacities(p, sourceDelta[p], sinkDelta[p]);
+        }
+      }
+      bulk.addTerminalCapacities(sourceDelta, sinkDelta);
+      MaxFlowResult rb = bulk.resolve();
+      MaxFlowResult rs = single.resolve();
+      assertThat(rb.flowValue()).isEqualTo(rs.flowValue());
+      assertThat(rb.sourceSide()).isEqualTo(rs.sourceSide());
+    }
+  }
+
+  @Test
   void refusesCapacitiesWhoseArcPairCouldOverflow() {
     GridMaxFlow solver = new GridMaxFlow(3, 3, 1, Neighborhood.N4, true);
     int[] caps = new int[9];
