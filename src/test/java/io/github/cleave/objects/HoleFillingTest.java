@@ -2,9 +2,71 @@ package io.github.cleave.objects;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 
 class HoleFillingTest {
+
+  @Test
+  void equalsABreadthFirstFloodFromTheBorderOnRandomMasks() {
+    // Reference: the definition itself, background not reached from the border by axial steps
+    // (a breadth-first flood, textbook, no source needed) is a hole.
+    SplittableRandom random = new SplittableRandom(20261202L);
+    for (int trial = 0; trial < 400; trial++) {
+      int w = 1 + random.nextInt(14);
+      int h = 1 + random.nextInt(14);
+      int d = trial % 2 == 0 ? 1 : 1 + random.nextInt(6);
+      int density = 30 + random.nextInt(50); // percent foreground
+      byte[] mask = new byte[w * h * d];
+      for (int i = 0; i < mask.length; i++) {
+        mask[i] = (byte) (random.nextInt(100) < density ? 255 : 0);
+      }
+      assertThat(HoleFilling.fill(mask, w, h, d)).isEqualTo(flood(mask, w, h, d));
+    }
+  }
+
+  private static byte[] flood(byte[] mask, int w, int h, int d) {
+    int n = mask.length;
+    boolean[] outside = new boolean[n];
+    int[] queue = new int[n];
+    int tail = 0;
+    for (int i = 0; i < n; i++) {
+      int x = i % w;
+      int y = i / w % h;
+      int z = i / (w * h);
+      boolean border =
+          x == 0 || x == w - 1 || y == 0 || y == h - 1 || (d > 1 && (z == 0 || z == d - 1));
+      if (border && mask[i] == 0) {
+        outside[i] = true;
+        queue[tail++] = i;
+      }
+    }
+    int[][] steps = {{1, 0, 0}, {-1, 0, 0}, {0, 1, 0}, {0, -1, 0}, {0, 0, 1}, {0, 0, -1}};
+    for (int head = 0; head < tail; head++) {
+      int i = queue[head];
+      int x = i % w;
+      int y = i / w % h;
+      int z = i / (w * h);
+      for (int[] s : steps) {
+        int qx = x + s[0];
+        int qy = y + s[1];
+        int qz = z + s[2];
+        if (qx < 0 || qx >= w || qy < 0 || qy >= h || qz < 0 || qz >= d) {
+          continue;
+        }
+        int q = qx + w * (qy + h * qz);
+        if (mask[q] == 0 && !outside[q]) {
+          outside[q] = true;
+          queue[tail++] = q;
+        }
+      }
+    }
+    byte[] out = new byte[n];
+    for (int i = 0; i < n; i++) {
+      out[i] = (byte) (outside[i] ? 0 : 255);
+    }
+    return out;
+  }
 
   @Test
   void ringBecomesDisk() {
