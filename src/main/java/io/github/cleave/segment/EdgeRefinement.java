@@ -56,10 +56,13 @@ import java.util.concurrent.CancellationException;
  */
 final class EdgeRefinement {
   /**
-   * Half-width of the band re-decided, in pixel widths: it covers the halo of about one voxel plus
-   * the width of a typical point-spread function, σ of 1 to 1.5 pixels (our choice, no source).
+   * Half-width of the band re-decided, in pixel widths, beyond the boundary voxels themselves: the
+   * halo of about one voxel that the whole-image likelihoods leave (our choice, no source).
+   * Measured on the sample phantoms at four seeds each: a band of 1 beat a band of 2 on every grey,
+   * two-channel and 3D case (Dice +0.003 to +0.008; stained within ±0.001); the wider band let
+   * noisy local levels move good edges inward.
    */
-  static final int BAND = 2;
+  static final int BAND = 1;
 
   /** Width of the background ring beyond the band, in pixel widths (our choice, no source). */
   static final int RING = 3;
