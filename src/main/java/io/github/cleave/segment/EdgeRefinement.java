@@ -30,9 +30,10 @@ import java.util.concurrent.CancellationException;
  * <ol>
  *   <li>Band: the cut's boundary voxels (those with an axial neighbour of the other class, on both
  *       sides) dilated by {@link #BAND} pixel widths in the plane and by the same physical distance
- *       along z, at least one plane (none when the planes are cut one by one). Ring: the background
- *       voxels within {@link #RING} further widths beyond the band. Interior: the foreground voxels
- *       outside the band.
+ *       along z rounded to whole planes (often none: the boundary voxels already include those with
+ *       a voxel of the other class above or below; none when the planes are cut one by one). Ring:
+ *       the background voxels within {@link #RING} further widths beyond the band. Interior: the
+ *       foreground voxels outside the band.
  *   <li>Local levels: at each interior voxel the mean of the interior voxels in a window of ±{@link
  *       #WINDOW} widths, at each ring voxel the mean of the ring voxels likewise (a normalised
  *       convolution: H. Knutsson and C.-F. Westin, "Normalized and differential convolution", CVPR
@@ -199,13 +200,17 @@ final class EdgeRefinement {
     }
   }
 
-  /** The band's reach along z in planes: the same physical distance, at least one plane. */
+  /**
+   * The reach along z in planes of a distance of {@code widths} pixel widths: the same physical
+   * distance, rounded. (A floor of one plane was tried: on the anisotropic sample stack, 0.2 × 0.2
+   * × 0.6 µm, it made the band three times deeper than wide and cost 0.004 to 0.008 in Dice.)
+   */
   private static int zReach(int widths, Raster features, boolean planes) {
     if (features.depth() == 1 || planes) {
       return 0;
     }
     double ratio = features.voxelSize().x() / features.voxelSize().z();
-    return Math.max(1, (int) Math.round(widths * ratio));
+    return (int) Math.round(widths * ratio);
   }
 
   /**

@@ -26,11 +26,11 @@ import org.junit.jupiter.api.Test;
  * <p>The goal is Dice ≥ 0.95 and F1 ≥ 0.9 on every phantom. It is reached on the three 2D phantoms
  * and missed on the stack (Dice); the floors below are the levels measured with the current
  * defaults, less a small margin, so that a regression shows. Measured at the default seed: nuclei
- * Dice 0.965 / F1 0.963, stained 0.980 / 1.000, two-channel 0.964 / 1.000, stack 0.943 / 1.000
- * (with class priors in the refinement rounds and an edge band of 2, before both changed: 0.946 /
- * 0.962, 0.981 / 1.000, 0.953 / 0.914, 0.914 / 0.880). The stack's remaining error is almost all
- * foreground missed at the rim of the objects' planes near their top and bottom, where the blur
- * along z dims the cross-sections (no object plane is missed whole); every truth is reachable in
+ * Dice 0.965 / F1 0.963, stained 0.980 / 1.000, two-channel 0.964 / 1.000, stack 0.947 / 1.000
+ * (with class priors in the refinement rounds and an edge band of 2, at least one plane deep,
+ * before these changed: 0.946 / 0.962, 0.981 / 1.000, 0.953 / 0.914, 0.914 / 0.880). The stack's
+ * remaining error is foreground missed at the rim of the objects' cross-sections, a few per cent of
+ * each plane of each object (no object plane is missed whole); every truth is reachable in
  * principle: {@code SamplePhantomsTest} requires the half-maximum contour of the noise-free blurred
  * truth to agree at Dice ≥ 0.97.
  */
@@ -43,7 +43,7 @@ class PhantomQualityTest {
           "nuclei", new double[] {0.96, 0.95}, // goal reached (0.965 / 0.963)
           "stained", new double[] {0.975, 0.95}, // goal reached (0.980 / 1.000)
           "two-channel", new double[] {0.96, 0.95}, // goal reached (0.964 / 1.000)
-          "stack", new double[] {0.935, 0.95}); // Dice goal missed (0.943 / 1.000)
+          "stack", new double[] {0.94, 0.95}); // Dice goal missed (0.947 / 1.000)
 
   @Test
   void otsuMissesEveryPhantom() {
