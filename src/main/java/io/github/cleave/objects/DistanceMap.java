@@ -63,6 +63,13 @@ final class DistanceMap {
 
     /** Transforms {@code f[start + j·stride]}, {@code j < length}, in place. */
     void transform(double[] f, int start, int stride, int length, double s) {
+      boolean allBackground = true;
+      for (int q = 0, i = start; q < length && allBackground; q++, i += stride) {
+        allBackground = f[i] == 0;
+      }
+      if (allBackground) {
+        return; // distance 0 everywhere: nothing to do (most lines of a sparse mask)
+      }
       int k = -1;
       for (int q = 0; q < length; q++) {
         double fq = f[start + q * stride];
