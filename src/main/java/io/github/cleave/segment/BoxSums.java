@@ -61,26 +61,27 @@ final class BoxSums {
   /**
    * In place over {@code count} consecutive rows of {@code rowLength} values from {@code start}:
    * each value becomes the sum of the values in the same column of the rows within {@code r} rows.
-   * A running sum of rows: the window's sum moves from row to row by adding the row entering it and
-   * subtracting the row leaving it (both read from a copy of the original rows).
+   * A running sum of rows: the window's sum moves from row to row by adding the row entering it
+   * (still original: it lies ahead) and subtracting the row leaving it, whose original values are
+   * kept in a ring of {@code r + 1} rows.
    */
   private static void acrossRows(float[] a, int start, int rowLength, int count, int r) {
-    float[] original = new float[rowLength * count];
-    System.arraycopy(a, start, original, 0, original.length);
+    float[] ring = new float[(r + 1) * rowLength];
     double[] window = new double[rowLength];
     for (int row = 0; row < Math.min(r, count); row++) {
-      add(window, original, row * rowLength, 1);
+      add(window, a, start + row * rowLength, 1);
     }
     for (int row = 0; row < count; row++) {
+      int base = start + row * rowLength;
+      int slot = (row % (r + 1)) * rowLength; // held row - r - 1, which leaves the window now
       int entering = row + r;
       if (entering < count) {
-        add(window, original, entering * rowLength, 1);
+        add(window, a, start + entering * rowLength, 1);
       }
-      int leaving = row - r - 1;
-      if (leaving >= 0) {
-        add(window, original, leaving * rowLength, -1);
+      if (row - r - 1 >= 0) {
+        add(window, ring, slot, -1);
       }
-      int base = start + row * rowLength;
+      System.arraycopy(a, base, ring, slot, rowLength);
       for (int i = 0; i < rowLength; i++) {
         a[base + i] = (float) window[i];
       }
