@@ -2,7 +2,6 @@ package io.github.cleave.io;
 
 import ij.ImagePlus;
 import ij.ImageStack;
-import ij.io.FileSaver;
 import ij.measure.Calibration;
 import ij.process.ByteProcessor;
 import ij.process.FloatProcessor;
@@ -33,10 +32,10 @@ import javax.imageio.stream.MemoryCacheImageOutputStream;
  *   <li>pictures: PNG through {@code javax.imageio}, cached in memory (no temporary files).
  * </ul>
  *
- * <p>TIFFs are encoded by ImageJ ({@code FileSaver.serialize()}), so ImageJ reads them back with
- * the same values, bit depth and calibration. The calibration is written whenever the voxel size
- * has a unit other than "pixel", also when it was {@link VoxelSize#assumed() assumed} (for instance
- * given on the command line), so that outputs measure the way the segmentation did.
+ * <p>TIFFs are encoded by ImageJ in one fixed byte order ({@link TiffBytes}), so ImageJ reads them
+ * back with the same values, bit depth and calibration. The calibration is written whenever the
+ * voxel size has a unit other than "pixel", also when it was {@link VoxelSize#assumed() assumed}
+ * (for instance given on the command line), so that outputs measure the way the segmentation did.
  *
  * <p>No output may overwrite an input: callers check each output path with {@link
  * #checkNotInput(Path, Collection)}. Stateless, thread-safe.
@@ -213,7 +212,7 @@ public final class ImageOutputs {
   }
 
   private static void write(Path file, ImagePlus imp) throws IOException {
-    byte[] bytes = new FileSaver(imp).serialize();
+    byte[] bytes = TiffBytes.encode(imp);
     if (bytes == null) {
       throw new IOException("ImageJ could not encode " + file + " as TIFF");
     }

@@ -4,7 +4,6 @@ import ij.CompositeImage;
 import ij.IJ;
 import ij.ImagePlus;
 import ij.ImageStack;
-import ij.io.FileSaver;
 import ij.measure.Calibration;
 import ij.process.ByteProcessor;
 import ij.process.ColorProcessor;
@@ -13,6 +12,7 @@ import io.github.cleave.image.PixelKind;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.VoxelSize;
 import io.github.cleave.io.AtomicFiles;
+import io.github.cleave.io.TiffBytes;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.List;
@@ -140,7 +140,7 @@ public final class SampleWriter {
   }
 
   private static void save(ImagePlus imp, Path target) throws IOException {
-    byte[] tiff = new FileSaver(imp).serialize();
+    byte[] tiff = TiffBytes.encode(imp);
     if (tiff == null) {
       throw new IOException("could not encode " + target + " as TIFF");
     }
