@@ -45,7 +45,9 @@ import java.util.BitSet;
  * reverse of arc {@code (p, k)} is {@code (p + offset[k], k ^ 1)}. Residuals live in one
  * interleaved array ({@code residual[p * K + k]}), so all arcs of a node share a cache line; the
  * parent of a node is the one-byte direction towards it. Capacities are {@code int}, sums {@code
- * long}.
+ * long}. Besides the one-arc setters, bulk setters fill the network in memory order: one direction
+ * for every node, both arcs of every symmetric pair of one direction, every arc of listed nodes (a
+ * graph over part of the grid), and terminal capacities or their changes for every node.
  *
  * <h2>Complexity</h2>
  *
