@@ -80,6 +80,7 @@ final class BrushPanel extends Frame {
     Panel lambda = new Panel(new java.awt.BorderLayout());
     lambda.add(lambdaSlider, java.awt.BorderLayout.CENTER);
     lambda.add(lambdaField, java.awt.BorderLayout.EAST);
+    lambdaSlider.setBlockIncrement(SLIDER_STEPS / 10);
     setLambda(session.settings().boundaryPenalty());
     lambdaSlider.addAdjustmentListener(
         e -> {

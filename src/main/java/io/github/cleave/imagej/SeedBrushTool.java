@@ -44,6 +44,11 @@ final class SeedBrushTool extends PlugInTool {
     sessions.put(s.imp, s);
   }
 
+  /** The session painting {@code imp}, or null. */
+  BrushSession session(ImagePlus imp) {
+    return sessions.get(imp);
+  }
+
   void detach(BrushSession s) {
     sessions.remove(s.imp);
   }
@@ -55,7 +60,7 @@ final class SeedBrushTool extends PlugInTool {
 
   @Override
   public String getToolIcon() {
-    return "C#e69f00F0088C#56b4e9F8888";
+    return "Ce90F0088C5beF8888"; // orange and sky blue squares (ImageJ tool icon codes)
   }
 
   @Override
