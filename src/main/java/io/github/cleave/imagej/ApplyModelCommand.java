@@ -43,7 +43,7 @@ public final class ApplyModelCommand implements PlugIn {
         return;
       }
       SegmentImageCommand.Result r = run(imp, values);
-      r.images().show(r.segmentation(), "Cleave objects of " + imp.getTitle());
+      r.images().show(r.segmentation(), Boolean.parseBoolean(values.get("add")));
       IJ.showStatus(SegmentImageCommand.summary(r.segmentation()));
     } catch (BadInputException e) {
       Problems.report(TITLE, e.getMessage());
@@ -59,7 +59,8 @@ public final class ApplyModelCommand implements PlugIn {
         "apply",
         List.of(
             FormField.file("Model file (JSON)", ""),
-            FormField.choice("Seeds (optional fixed marks)", SeedSource.NONE, seeds)));
+            FormField.choice("Seeds (optional fixed marks)", SeedSource.NONE, seeds),
+            FormField.check("Add objects to the ROI Manager", false)));
   }
 
   private static void check(Map<String, String> values) {

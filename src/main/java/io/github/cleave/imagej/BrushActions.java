@@ -62,11 +62,10 @@ final class BrushActions {
     background(
         () -> {
           ResultImages images = images(seeds, settings);
-          ImagePlus imp = session.imp;
           switch (output) {
             case MASK -> images.mask().show();
             case LABELS -> images.labels().show();
-            case MEASURE -> images.table().show("Cleave objects of " + imp.getTitle());
+            case MEASURE -> images.table().show(ResultImages.TABLE);
             case ROIS -> {
               RoiManager rm = RoiManager.getRoiManager();
               for (Roi roi : RoiExport.rois(last.objects())) {

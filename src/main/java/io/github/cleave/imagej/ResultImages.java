@@ -62,21 +62,26 @@ record ResultImages(ImagePlus mask, ImagePlus labels, ResultsTable table) {
     return new ResultImages(mask, labels, table(result, raster));
   }
 
+  /** The title of the table shown: ImageJ's own Results table, which macros read and save. */
+  static final String TABLE = "Results";
+
   /**
-   * Shows the images and the table, and adds the ROIs to the ROI Manager; with no display only
-   * batch-mode images are kept (nothing is shown).
+   * Shows the images and the table (as ImageJ's Results table) and, if asked, adds the objects'
+   * ROIs to the ROI Manager; with no display only batch-mode images are kept (nothing is shown).
    */
-  void show(Segmentation result, String tableTitle) {
+  void show(Segmentation result, boolean roisToManager) {
     boolean headless = GraphicsEnvironment.isHeadless();
     if (!headless || Interpreter.isBatchMode()) {
       mask.show();
       labels.show();
     }
     if (!headless) {
-      table.show(tableTitle);
-      RoiManager rm = RoiManager.getRoiManager();
-      for (Roi roi : RoiExport.rois(result.objects())) {
-        rm.addRoi(roi);
+      table.show(TABLE);
+      if (roisToManager) {
+        RoiManager rm = RoiManager.getRoiManager();
+        for (Roi roi : RoiExport.rois(result.objects())) {
+          rm.addRoi(roi);
+        }
       }
     }
   }

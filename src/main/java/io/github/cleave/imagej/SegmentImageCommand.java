@@ -51,7 +51,7 @@ public final class SegmentImageCommand implements PlugIn {
         return;
       }
       Result r = run(imp, values);
-      r.images().show(r.segmentation(), "Cleave objects of " + imp.getTitle());
+      r.images().show(r.segmentation(), Boolean.parseBoolean(values.get("add")));
       IJ.showStatus(summary(r.segmentation()));
     } catch (BadInputException e) {
       Problems.report(TITLE, e.getMessage());
@@ -69,6 +69,7 @@ public final class SegmentImageCommand implements PlugIn {
     fields.add(FormField.choice("Seeds (seed label image or ROI Manager)", seeds.get(0), seeds));
     fields.addAll(SettingsFields.fields());
     fields.add(FormField.file("Save model to (optional JSON file)", ""));
+    fields.add(FormField.check("Add objects to the ROI Manager", false));
     return new Form(TITLE, "segment", fields);
   }
 

@@ -222,7 +222,8 @@ class SegmentCommandsInImageJTest {
             "max",
             "exclude",
             "edge",
-            "save");
+            "save",
+            "add");
     assertThat(SegmentFolderCommand.form().fields().stream().map(FormField::key).toList())
         .containsExactly(
             "model", "input", "output", "seeds", "pattern", "threads", "recursive", "overwrite");
