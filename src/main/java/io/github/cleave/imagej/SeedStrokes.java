@@ -9,6 +9,8 @@ import java.awt.Color;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
 
 /**
  * The seed strokes painted on one image, with undo. A stroke is a polyline in image pixel
@@ -53,6 +55,8 @@ final class SeedStrokes {
   private List<Stroke> strokes = List.of();
   private byte[] base; // loaded seed labels, or null
   private final List<Object[]> history = new ArrayList<>(); // {strokes, base}
+  // pixels covered by each stroke (strokes are immutable and compared by identity), any thread
+  private final Map<Stroke, int[]> covered = new ConcurrentHashMap<>();
 
   SeedStrokes(int width, int height, int depth) {
     this.width = width;
@@ -161,15 +165,37 @@ final class SeedStrokes {
     int plane = width * height;
     byte[] out = base == null ? new byte[plane * depth] : base.clone();
     for (Stroke s : strokes) {
-      byte[] drawn = rasterise(s);
-      int offset = s.plane() * plane;
-      for (int i = 0; i < plane; i++) {
-        if (drawn[i] != 0) {
-          out[offset + i] = (byte) s.label();
-        }
-      }
+      paint(s, out, s.plane() * plane, (byte) s.label());
     }
     return new SeedLabels(width, height, depth, out);
+  }
+
+  /**
+   * Paints a stroke into {@code out} (its plane at {@code offset}). The pixels a stroke covers are
+   * drawn once, on the whole plane as {@link #rasterise} draws them, and kept as a list of pixel
+   * indices, so that the labels of many strokes cost little more than copying a plane.
+   */
+  private void paint(Stroke s, byte[] out, int offset, byte label) {
+    int[] pixels = covered.computeIfAbsent(s, this::coveredPixels);
+    for (int i : pixels) {
+      out[offset + i] = label;
+    }
+  }
+
+  private int[] coveredPixels(Stroke s) {
+    byte[] drawn = rasterise(s);
+    int n = 0;
+    for (byte b : drawn) {
+      n += b != 0 ? 1 : 0;
+    }
+    int[] pixels = new int[n];
+    int k = 0;
+    for (int i = 0; i < drawn.length; i++) {
+      if (drawn[i] != 0) {
+        pixels[k++] = i;
+      }
+    }
+    return pixels;
   }
 
   /**
