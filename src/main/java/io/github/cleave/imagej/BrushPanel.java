@@ -38,7 +38,7 @@ final class BrushPanel extends Frame {
   private final Scrollbar lambdaSlider =
       new Scrollbar(Scrollbar.HORIZONTAL, 0, 1, 0, SLIDER_STEPS + 1);
   private final TextField lambdaField = new TextField(6);
-  private final TextField widthField = new TextField("8", 4);
+  private final TextField widthField;
   private final TextField contrastField = new TextField("auto", 6);
   private final Choice neighborhood = new Choice();
   private final Choice likelihood = new Choice();
@@ -48,6 +48,7 @@ final class BrushPanel extends Frame {
     super("Cleave seed brush: " + session.imp.getTitle());
     this.session = session;
     this.actions = new BrushActions(session, this::showStatus);
+    this.widthField = new TextField(SettingsFields.number(session.settings().width()), 4);
     setLayout(new GridBagLayout());
     GridBagConstraints g = new GridBagConstraints();
     g.anchor = GridBagConstraints.WEST;

@@ -86,6 +86,20 @@ final class BrushSession implements ImageListener {
     return settings;
   }
 
+  private java.awt.Frame panel; // event thread
+
+  void setPanel(java.awt.Frame p) {
+    panel = p;
+  }
+
+  /** Brings the session's panel to the front. */
+  void showPanel() {
+    if (panel != null) {
+      panel.setVisible(true);
+      panel.toFront();
+    }
+  }
+
   /** Takes new panel settings; {@code recut} asks for a new cut. */
   void setSettings(BrushSettings s, boolean recut) {
     settings = s;

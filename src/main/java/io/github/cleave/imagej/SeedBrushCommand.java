@@ -35,6 +35,12 @@ public final class SeedBrushCommand implements PlugIn {
     try {
       EventQueue.invokeAndWait(
           () -> {
+            BrushSession open = SeedBrushTool.get().session(imp);
+            if (open != null) { // one session per image: bring its panel back
+              SeedBrushTool.get().run("");
+              open.showPanel();
+              return;
+            }
             BrushPanel[] panel = new BrushPanel[1];
             session[0] = new BrushSession(imp, line -> panel[0].showStatus(line));
             panel[0] = new BrushPanel(session[0]);
@@ -45,6 +51,7 @@ public final class SeedBrushCommand implements PlugIn {
             if (w != null) {
               panel[0].setLocation(w.getX() + w.getWidth() + 8, w.getY());
             }
+            session[0].setPanel(panel[0]);
             panel[0].setVisible(true);
           });
       IJ.showStatus("Cleave: paint foreground strokes; Alt paints background");
