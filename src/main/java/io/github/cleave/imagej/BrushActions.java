@@ -1,0 +1,213 @@
+package io.github.cleave.imagej;
+
+import ij.IJ;
+import ij.ImagePlus;
+import ij.ImageStack;
+import ij.gui.Roi;
+import ij.io.FileSaver;
+import ij.io.OpenDialog;
+import ij.io.RoiEncoder;
+import ij.io.SaveDialog;
+import ij.plugin.frame.RoiManager;
+import ij.process.ByteProcessor;
+import io.github.cleave.image.BadInputException;
+import io.github.cleave.image.SeedLabels;
+import io.github.cleave.io.ModelFiles;
+import io.github.cleave.io.SeedFiles;
+import io.github.cleave.objects.RoiExport;
+import io.github.cleave.segment.Segmentation;
+import io.github.cleave.segment.SegmentationSettings;
+import io.github.cleave.segment.Segmenter;
+import java.awt.EventQueue;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.CancellationException;
+import java.util.function.Consumer;
+import java.util.zip.ZipEntry;
+import java.util.zip.ZipOutputStream;
+
+/**
+ * The panel's actions on a brush session. Results come from the whole pipeline ({@link
+ * Segmenter#segment}, the same as {@code Segment Current Image...} with the panel's settings), run
+ * off the event thread with Esc to stop; the last result is kept while seeds and settings stay the
+ * same, so mask, label image, ROIs and measurements of one state agree.
+ */
+final class BrushActions {
+  private final BrushSession session;
+  private final Consumer<String> status;
+  private Segmentation last;
+  private SeedLabels lastSeeds;
+  private SegmentationSettings lastSettings;
+
+  BrushActions(BrushSession session, Consumer<String> status) {
+    this.session = session;
+    this.status = status;
+  }
+
+  /** What an action does with the segmentation of the present seeds. */
+  enum Output {
+    MASK,
+    LABELS,
+    ROIS,
+    MEASURE
+  }
+
+  /** Segments with the present seeds and settings (if needed) and presents {@code output}. */
+  void present(Output output) {
+    SeedLabels seeds = session.strokes.labels();
+    SegmentationSettings settings = session.settings().segmentation();
+    background(
+        () -> {
+          ResultImages images = images(seeds, settings);
+          switch (output) {
+            case MASK -> images.mask().show();
+            case LABELS -> images.labels().show();
+            case MEASURE -> images.table().show(ResultImages.TABLE);
+            case ROIS -> {
+              RoiManager rm = RoiManager.getRoiManager();
+              for (Roi roi : RoiExport.rois(last.objects())) {
+                rm.addRoi(roi);
+              }
+            }
+          }
+          status.accept(SegmentImageCommand.summary(last));
+        });
+  }
+
+  private synchronized ResultImages images(SeedLabels seeds, SegmentationSettings settings) {
+    if (last == null
+        || !settings.equals(lastSettings)
+        || !java.util.Arrays.equals(seeds.labels(), lastSeeds.labels())) {
+      if (!LiveCut.hasBothClasses(seeds)) {
+        throw new BadInputException("paint at least one foreground and one background stroke");
+      }
+      status.accept("segmenting with the whole pipeline (Esc stops)");
+      last = Segmenter.segment(session.image.raster(), seeds, settings);
+      lastSeeds = seeds;
+      lastSettings = settings;
+    }
+    return ResultImages.of(
+        session.imp,
+        session.image.raster(),
+        last,
+        "Seed Brush",
+        List.of("seeds: " + session.strokes.strokes().size() + " stroke(s) painted"));
+  }
+
+  /** Saves the strokes as a ROI zip that {@code Segment Current Image...} and the CLI read. */
+  void saveRoiZip() {
+    List<SeedStrokes.Stroke> list = session.strokes.strokes();
+    if (list.isEmpty()) {
+      status.accept("no stroke to save (loaded seed images are saved with Save seed image)");
+      return;
+    }
+    SaveDialog sd = new SaveDialog("Save seeds as ROI zip", base() + ".seeds", ".zip");
+    if (sd.getFileName() == null) {
+      return;
+    }
+    Path file = Path.of(sd.getDirectory(), sd.getFileName());
+    boolean stack = session.imp.getNSlices() > 1;
+    try (OutputStream out = Files.newOutputStream(file);
+        ZipOutputStream zip = new ZipOutputStream(out)) {
+      for (int i = 0; i < list.size(); i++) {
+        Roi roi = list.get(i).toRoi(i + 1, stack);
+        zip.putNextEntry(new ZipEntry(roi.getName() + ".roi"));
+        zip.write(RoiEncoder.saveAsByteArray(roi));
+        zip.closeEntry();
+      }
+      status.accept("seeds saved to " + file);
+    } catch (IOException e) {
+      IJ.error("Cleave", "cannot write " + file + ": " + e.getMessage());
+    }
+  }
+
+  /** Saves the seeds as a seed label image (8-bit TIFF: 0 none, 1 foreground, 2 background). */
+  void saveSeedImage() {
+    SaveDialog sd = new SaveDialog("Save seed image", base() + ".seeds", ".tif");
+    if (sd.getFileName() == null) {
+      return;
+    }
+    SeedLabels s = session.strokes.labels();
+    ImageStack stack = new ImageStack(s.width(), s.height());
+    int n = s.width() * s.height();
+    for (int z = 0; z < s.depth(); z++) {
+      byte[] p = new byte[n];
+      System.arraycopy(s.labels(), z * n, p, 0, n);
+      stack.addSlice(null, new ByteProcessor(s.width(), s.height(), p));
+    }
+    ImagePlus imp = new ImagePlus(sd.getFileName(), stack);
+    String path = Path.of(sd.getDirectory(), sd.getFileName()).toString();
+    if (new FileSaver(imp).saveAsTiff(path)) {
+      status.accept("seed image saved to " + path);
+    }
+  }
+
+  /**
+   * Loads seeds from a seed label image or a ROI zip, replacing the strokes (undo brings them
+   * back).
+   */
+  void load() {
+    OpenDialog od = new OpenDialog("Load seeds (seed image or ROI zip)");
+    if (od.getFileName() == null) {
+      return;
+    }
+    Path file = Path.of(od.getDirectory(), od.getFileName());
+    ImagePlus imp = session.imp;
+    try {
+      session.strokes.load(SeedFiles.read(file, imp.getWidth(), imp.getHeight(), imp.getNSlices()));
+      session.strokesChanged();
+      status.accept("seeds loaded from " + file);
+    } catch (BadInputException e) {
+      IJ.error("Cleave", e.getMessage());
+    }
+  }
+
+  /** Learns a model from the present seeds and settings and saves it (JSON, for folders). */
+  void saveModel() {
+    SaveDialog sd = new SaveDialog("Save model", base() + ".model", ".json");
+    if (sd.getFileName() == null) {
+      return;
+    }
+    Path file = Path.of(sd.getDirectory(), sd.getFileName());
+    SeedLabels seeds = session.strokes.labels();
+    SegmentationSettings settings = session.settings().segmentation();
+    background(
+        () -> {
+          if (!LiveCut.hasBothClasses(seeds)) {
+            throw new BadInputException("paint at least one foreground and one background stroke");
+          }
+          ModelFiles.write(file, Segmenter.learn(session.image.raster(), seeds, settings));
+          status.accept("model saved to " + file + " (for Apply Model and Segment Folder)");
+        });
+  }
+
+  private String base() {
+    return ResultImages.baseTitle(session.imp.getTitle());
+  }
+
+  /** Work that may fail with a message. */
+  interface Work {
+    void run() throws IOException;
+  }
+
+  private void background(Work work) {
+    Thread t =
+        new Thread(
+            () -> {
+              try (EscapeWatch esc = EscapeWatch.interrupting(Thread.currentThread())) {
+                work.run();
+              } catch (BadInputException | IOException e) {
+                String m = e.getMessage();
+                EventQueue.invokeLater(() -> IJ.error("Cleave", m));
+              } catch (CancellationException e) {
+                status.accept("stopped (Esc)");
+              }
+            },
+            "Cleave action");
+    t.setDaemon(true);
+    t.start();
+  }
+}

@@ -1,0 +1,351 @@
+package io.github.cleave.imagej;
+
+import ij.ImageListener;
+import ij.ImagePlus;
+import ij.gui.Overlay;
+import ij.gui.Roi;
+import ij.plugin.filter.ThresholdToSelection;
+import ij.process.ByteProcessor;
+import ij.process.ImageProcessor;
+import io.github.cleave.flow.Neighborhood;
+import io.github.cleave.image.PixelKind;
+import io.github.cleave.image.Raster;
+import io.github.cleave.image.SeedLabels;
+import io.github.cleave.io.ImageFiles;
+import io.github.cleave.io.LoadedImage;
+import io.github.cleave.model.LikelihoodModel;
+import io.github.cleave.model.ModelKind;
+import io.github.cleave.model.ModelLearner;
+import io.github.cleave.render.OverlayPicture;
+import java.awt.Color;
+import java.awt.EventQueue;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.ScheduledExecutorService;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicLong;
+import java.util.function.Consumer;
+
+/**
+ * One image being painted with the seed brush: its strokes, the live cut, and the overlay that
+ * shows both. The image's pixels and display settings are never changed; its own overlay is kept
+ * under ours and restored by {@link #close()}.
+ *
+ * <p><b>Threads.</b> Strokes and the overlay belong to the event thread. Every change asks for a
+ * cut ({@link #request}); cuts run on one worker thread, newest request first: a request that is no
+ * longer the newest when its turn comes is skipped, and a result that is stale when it arrives is
+ * not shown. About {@value #RELEARN_MS} ms after the last stroke the likelihoods are learned again
+ * from all seeds (every plane counts) and the cut rebuilt.
+ */
+final class BrushSession implements ImageListener {
+  /** Pause after a stroke before the likelihoods are learned again, in milliseconds. */
+  static final int RELEARN_MS = 1000;
+
+  private static final Color CONTOUR = new Color(OverlayPicture.CONTOUR);
+
+  final ImagePlus imp;
+  final LoadedImage image;
+  final SeedStrokes strokes;
+  private final Raster features; // driving channels, every plane
+  private final Overlay original;
+  private final Consumer<String> status;
+  private final ExecutorService worker;
+  private final ScheduledExecutorService timer;
+  private final AtomicLong latest = new AtomicLong();
+  private volatile BrushSettings settings = BrushSettings.defaults();
+
+  // worker thread only
+  private LiveCut live;
+  private String liveKey;
+  private LikelihoodModel model;
+  private ModelKind modelKind;
+
+  // event thread only
+  private byte[] mask; // last mask shown: one plane (plane mode) or the volume
+  private int maskPlane = -1; // the plane of mask, or -1 for a volume
+  private int shownPlane = -1;
+  private Roi drawing; // the stroke being drawn
+
+  BrushSession(ImagePlus imp, Consumer<String> status) {
+    this.imp = imp;
+    this.status = status;
+    this.image = ImageFiles.fromImagePlus(imp, imp.getTitle());
+    Raster r = image.raster();
+    this.features =
+        r.selectChannels(r.kind() == PixelKind.RGB ? new int[] {0, 1, 2} : new int[] {0});
+    this.strokes = new SeedStrokes(r.width(), r.height(), r.depth());
+    this.original = imp.getOverlay() == null ? null : imp.getOverlay().duplicate();
+    this.worker = Executors.newSingleThreadExecutor(daemon("Cleave live cut"));
+    this.timer = Executors.newSingleThreadScheduledExecutor(daemon("Cleave pause timer"));
+    ImagePlus.addImageListener(this);
+  }
+
+  BrushSettings settings() {
+    return settings;
+  }
+
+  private java.awt.Frame panel; // event thread
+
+  void setPanel(java.awt.Frame p) {
+    panel = p;
+  }
+
+  /** Brings the session's panel to the front. */
+  void showPanel() {
+    if (panel != null) {
+      panel.setVisible(true);
+      panel.toFront();
+    }
+  }
+
+  /** Takes new panel settings; {@code recut} asks for a new cut. */
+  void setSettings(BrushSettings s, boolean recut) {
+    settings = s;
+    if (recut) {
+      request(false);
+    }
+  }
+
+  /** The 0-based plane shown. */
+  int plane() {
+    return imp.getNSlices() > 1 ? imp.getZ() - 1 : 0;
+  }
+
+  /** Shows a stroke while it is drawn (null to remove it). */
+  void drawing(Roi roi) {
+    drawing = roi;
+    redraw();
+  }
+
+  /** After a change of the strokes: redraws them and asks for a cut, then a re-learn later. */
+  void strokesChanged() {
+    redraw();
+    long gen = request(false);
+    timer.schedule(
+        () ->
+            EventQueue.invokeLater(
+                () -> {
+                  if (latest.get() == gen) {
+                    request(true);
+                  }
+                }),
+        RELEARN_MS,
+        TimeUnit.MILLISECONDS);
+  }
+
+  /** Asks for a cut of the present strokes and settings; returns the request's number. */
+  long request(boolean relearn) {
+    long gen = latest.incrementAndGet();
+    long asked = System.nanoTime();
+    SeedStrokes.Snapshot snap = strokes.snapshot();
+    BrushSettings s = settings;
+    int plane = plane();
+    worker.execute(() -> cut(gen, asked, snap, s, plane, relearn));
+    return gen;
+  }
+
+  private void cut(
+      long gen,
+      long asked,
+      SeedStrokes.Snapshot snap,
+      BrushSettings s,
+      int plane,
+      boolean relearn) {
+    if (gen != latest.get()) {
+      return; // a newer request replaces this one
+    }
+    try {
+      SeedLabels seeds = snap.labels();
+      boolean volume = s.volume() && features.depth() > 1;
+      if (model == null || relearn || modelKind != s.likelihood()) {
+        if (!LiveCut.hasBothClasses(seeds)) {
+          show(gen, null, -1, "paint a foreground and a background stroke to see the cut");
+          return;
+        }
+        model = ModelLearner.learn(features, seeds, s.likelihood());
+        modelKind = s.likelihood();
+        live = null;
+      }
+      Neighborhood nb = neighborhood(s.neighborhood(), volume);
+      String key = (volume ? "volume" : "plane " + plane) + " " + nb;
+      if (live == null || !key.equals(liveKey)) {
+        live = new LiveCut(volume ? features : plane(features, plane), nb);
+        live.useModel(model);
+        liveKey = key;
+      }
+      SeedLabels cutSeeds = volume ? seeds : plane(seeds, plane);
+      LiveCut.Outcome o = live.update(cutSeeds, s.boundaryPenalty(), s.contrastScale());
+      double total = (System.nanoTime() - asked) / 1e6;
+      String line =
+          String.format(
+              Locale.ROOT,
+              "flow value = cut value = %d%s · solve %.1f ms (%s) · stroke to cut %.0f ms",
+              o.flowValue(),
+              o.certified() ? " (checked)" : "",
+              o.solveNanos() / 1e6,
+              o.dynamic() ? "dynamic re-solve" : relearn ? "re-learned, full solve" : "full solve",
+              total);
+      show(gen, o.mask(), volume ? -1 : plane, line);
+    } catch (RuntimeException e) {
+      show(gen, null, -1, "cannot cut: " + e.getMessage());
+    }
+  }
+
+  private void show(long gen, byte[] newMask, int plane, String line) {
+    EventQueue.invokeLater(
+        () -> {
+          if (gen != latest.get()) {
+            return; // stale
+          }
+          if (newMask != null) {
+            mask = newMask;
+            maskPlane = plane;
+          }
+          redraw();
+          status.accept(line);
+        });
+  }
+
+  /** The neighbourhood to cut with: the chosen one if it fits, else the default. */
+  static Neighborhood neighborhood(int chosen, boolean volume) {
+    if (chosen != 0) {
+      Neighborhood nb = Neighborhood.of(chosen);
+      if (nb.isThreeDimensional() == volume) {
+        return nb;
+      }
+    }
+    return Neighborhood.of(volume ? 6 : 8);
+  }
+
+  /** Redraws the overlay: the image's own, then the strokes, the stroke being drawn, the cut. */
+  void redraw() {
+    Overlay ov = new Overlay();
+    if (original != null) {
+      for (Roi r : original.toArray()) {
+        ov.add(r);
+      }
+    }
+    boolean stack = imp.getStackSize() > 1;
+    boolean hyper = imp.isHyperStack();
+    List<SeedStrokes.Stroke> list = strokes.strokes();
+    for (int i = 0; i < list.size(); i++) {
+      ov.add(list.get(i).toRoi(i + 1, stack, hyper));
+    }
+    if (drawing != null) {
+      ov.add(drawing);
+    }
+    Roi contour = contour();
+    if (contour != null) {
+      ov.add(contour);
+    }
+    shownPlane = plane();
+    imp.setOverlay(ov);
+  }
+
+  /** The foreground mask of the last cut, or null: one plane or the whole volume. */
+  byte[] lastMask() {
+    return mask;
+  }
+
+  int lastMaskPlane() {
+    return maskPlane;
+  }
+
+  private Roi contour() {
+    if (mask == null) {
+      return null;
+    }
+    int w = imp.getWidth();
+    int h = imp.getHeight();
+    int z = plane();
+    byte[] planeMask;
+    if (maskPlane < 0) {
+      planeMask = new byte[w * h];
+      System.arraycopy(mask, z * w * h, planeMask, 0, w * h);
+    } else if (maskPlane == z) {
+      planeMask = mask;
+    } else {
+      return null;
+    }
+    ByteProcessor bp = new ByteProcessor(w, h, planeMask);
+    bp.setThreshold(255, 255, ImageProcessor.NO_LUT_UPDATE);
+    Roi r = new ThresholdToSelection().convert(bp);
+    if (r == null) {
+      return null;
+    }
+    r.setStrokeColor(CONTOUR);
+    r.setStrokeWidth(0);
+    r.setName("cut");
+    if (imp.getStackSize() > 1) {
+      if (imp.isHyperStack()) {
+        r.setPosition(0, z + 1, 0);
+      } else {
+        r.setPosition(z + 1);
+      }
+    }
+    return r;
+  }
+
+  @Override
+  public void imageOpened(ImagePlus other) {}
+
+  @Override
+  public void imageClosed(ImagePlus other) {
+    if (other == imp) {
+      shutdown();
+    }
+  }
+
+  @Override
+  public void imageUpdated(ImagePlus other) {
+    if (other == imp && plane() != shownPlane) {
+      EventQueue.invokeLater(
+          () -> {
+            redraw();
+            if (!settings.volume() || imp.getNSlices() == 1) {
+              request(false);
+            }
+          });
+    }
+  }
+
+  /** Stops the worker and restores the image's own overlay. */
+  void close() {
+    shutdown();
+    imp.setOverlay(original);
+  }
+
+  private void shutdown() {
+    ImagePlus.removeImageListener(this);
+    latest.incrementAndGet();
+    worker.shutdownNow();
+    timer.shutdownNow();
+  }
+
+  static Raster plane(Raster r, int z) {
+    int n = r.width() * r.height();
+    float[][] out = new float[r.channelCount()][];
+    for (int c = 0; c < out.length; c++) {
+      out[c] = new float[n];
+      System.arraycopy(r.channel(c), z * n, out[c], 0, n);
+    }
+    return new Raster(r.width(), r.height(), 1, out, r.voxelSize(), r.kind());
+  }
+
+  static SeedLabels plane(SeedLabels s, int z) {
+    int n = s.width() * s.height();
+    byte[] out = new byte[n];
+    System.arraycopy(s.labels(), z * n, out, 0, n);
+    return new SeedLabels(s.width(), s.height(), 1, out);
+  }
+
+  private static java.util.concurrent.ThreadFactory daemon(String name) {
+    return r -> {
+      Thread t = new Thread(r, name);
+      t.setDaemon(true);
+      return t;
+    };
+  }
+}

@@ -1,0 +1,178 @@
+package io.github.cleave.imagej;
+
+import io.github.cleave.energy.CapacityScale;
+import io.github.cleave.energy.ContrastScale;
+import io.github.cleave.energy.CutProblem;
+import io.github.cleave.energy.EnergyParameters;
+import io.github.cleave.flow.MaxFlowResult;
+import io.github.cleave.flow.Neighborhood;
+import io.github.cleave.image.Raster;
+import io.github.cleave.image.SeedLabels;
+import io.github.cleave.model.LikelihoodModel;
+
+/**
+ * The minimum cut shown while the user paints: the energy of DESIGN.md on one plane (or one volume)
+ * of features, with the likelihoods learned from the seeds, kept between strokes so that a new
+ * stroke costs only a dynamic re-solve.
+ *
+ * <p><b>Fast path.</b> A stroke, an erased stroke or an undo changes only hard constraints: each
+ * voxel whose seed label changed gets new terminal capacities (a foreground seed {@code source → p
+ * = K, p → sink = 0}, a background seed the reverse, with {@code K = cut.hardCapacity()}; an
+ * unseeded voxel its regional costs again), applied with {@code addTerminalCapacities} to the kept
+ * flow and search trees, then {@code resolve()} continues from them (Kohli and Torr, "Dynamic graph
+ * cuts for efficient inference in Markov random fields", IEEE TPAMI 29(12), 2007,
+ * doi:10.1109/TPAMI.2007.1128). The result equals a solve from scratch of the same capacities.
+ *
+ * <p><b>Slow path.</b> New likelihoods ({@link #useModel}, after a pause in painting), a new
+ * boundary penalty or contrast scale rebuilds the graph and solves it from scratch: O(n · K) to
+ * build plus the solve.
+ *
+ * <p>This is the plain minimum cut (no illumination flattening, refinement rounds, edge placement
+ * or object rules); the commands that make masks run the whole pipeline. Labels above 2 count as no
+ * seed here. Not thread-safe: one worker thread owns an instance.
+ */
+final class LiveCut {
+  private final Raster features;
+  private final Neighborhood neighborhood;
+  private final int n;
+
+  private LikelihoodModel model;
+  private float[] foregroundCost;
+  private float[] backgroundCost;
+  private double sigma = Double.NaN; // the estimate, made once
+  private CutProblem cut;
+  private double builtLambda = Double.NaN;
+  private double builtSigma = Double.NaN;
+  private byte[] applied; // the seed labels the kept cut holds (0, 1, 2)
+  private int[] source; // present source capacities of the kept cut
+  private int[] sink; // present sink capacities
+
+  /** The outcome of one update. */
+  record Outcome(
+      byte[] mask, long flowValue, boolean certified, long solveNanos, boolean dynamic) {}
+
+  /**
+   * @param features the driving channels of the plane or volume being cut
+   * @param neighborhood a 2D neighbourhood for a plane, 3D for a volume
+   */
+  LiveCut(Raster features, Neighborhood neighborhood) {
+    this.features = features;
+    this.neighborhood = neighborhood;
+    this.n = features.size();
+  }
+
+  /** Whether the seeds hold both a foreground and a background voxel (learning needs both). */
+  static boolean hasBothClasses(SeedLabels seeds) {
+    long[] counts = seeds.countsPerLabel();
+    return counts.length > 2 && counts[1] > 0 && counts[2] > 0;
+  }
+
+  /** Whether a model has been given; {@link #update} needs one. */
+  boolean hasModel() {
+    return model != null;
+  }
+
+  /**
+   * Takes the likelihoods of {@code learned} (learned from the seeds of this plane, or of every
+   * plane of a stack) for the regional term; the next {@link #update} rebuilds the graph.
+   */
+  void useModel(LikelihoodModel learned) {
+    model = learned;
+    float[][] costs = new float[learned.classCount()][n];
+    learned.costs(features, costs);
+    foregroundCost = costs[0];
+    backgroundCost = costs[1];
+    cut = null;
+  }
+
+  /**
+   * Cuts with these seeds and parameters, re-using the kept cut where only seeds changed.
+   *
+   * @param seeds labels of the features' voxels (hard constraints; may be empty)
+   * @param lambda the boundary penalty
+   * @param contrastScale σ, or NaN to estimate it from the features
+   * @throws IllegalStateException if no model was given
+   */
+  Outcome update(SeedLabels seeds, double lambda, double contrastScale) {
+    if (model == null) {
+      throw new IllegalStateException("no likelihood model yet: call useModel first");
+    }
+    double s = contrastScale;
+    if (Double.isNaN(s)) {
+      if (Double.isNaN(sigma)) {
+        sigma = ContrastScale.estimate(features, neighborhood);
+      }
+      s = sigma;
+    }
+    byte[] labels = twoClass(seeds.labels());
+    MaxFlowResult result;
+    boolean dynamic = cut != null && lambda == builtLambda && s == builtSigma;
+    if (dynamic) {
+      result = reseed(labels);
+    } else {
+      build(labels, lambda, s);
+      result = cut.solve();
+    }
+    boolean certified = cut.solver().checkCertificate();
+    return new Outcome(
+        CutProblem.mask(result), result.flowValue(), certified, result.solveNanos(), dynamic);
+  }
+
+  private void build(byte[] labels, double lambda, double s) {
+    SeedLabels seeds =
+        new SeedLabels(features.width(), features.height(), features.depth(), labels.clone());
+    EnergyParameters p = new EnergyParameters(lambda, s, neighborhood, features.voxelSize());
+    cut = CutProblem.build(features, foregroundCost, backgroundCost, seeds, p, true);
+    builtLambda = lambda;
+    builtSigma = s;
+    applied = labels;
+    source = new int[n];
+    sink = new int[n];
+    for (int i = 0; i < n; i++) {
+      setTarget(i, labels[i]);
+    }
+  }
+
+  private MaxFlowResult reseed(byte[] labels) {
+    int[] ds = new int[n];
+    int[] dt = new int[n];
+    for (int i = 0; i < n; i++) {
+      if (labels[i] != applied[i]) {
+        int s0 = source[i];
+        int t0 = sink[i];
+        setTarget(i, labels[i]);
+        ds[i] = source[i] - s0;
+        dt[i] = sink[i] - t0;
+      }
+    }
+    applied = labels;
+    cut.solver().addTerminalCapacities(ds, dt);
+    return cut.resolve();
+  }
+
+  /**
+   * The terminal capacities of voxel {@code i} with seed label {@code label}, as CutProblem sets.
+   */
+  private void setTarget(int i, byte label) {
+    int hard = cut.hardCapacity();
+    if (label == SeedLabels.FOREGROUND) {
+      source[i] = hard;
+      sink[i] = 0;
+    } else if (label == SeedLabels.BACKGROUND) {
+      source[i] = 0;
+      sink[i] = hard;
+    } else {
+      source[i] = CapacityScale.toCapacity(backgroundCost[i]);
+      sink[i] = CapacityScale.toCapacity(foregroundCost[i]);
+    }
+  }
+
+  private static byte[] twoClass(byte[] labels) {
+    byte[] out = new byte[labels.length];
+    for (int i = 0; i < labels.length; i++) {
+      int l = labels[i];
+      out[i] = l == 1 || l == 2 ? (byte) l : 0;
+    }
+    return out;
+  }
+}

@@ -1,0 +1,183 @@
+package io.github.cleave.imagej;
+
+import ij.ImagePlus;
+import ij.ImageStack;
+import ij.gui.Roi;
+import ij.macro.Interpreter;
+import ij.measure.ResultsTable;
+import ij.plugin.frame.RoiManager;
+import ij.process.ByteProcessor;
+import ij.process.FloatProcessor;
+import ij.process.ImageProcessor;
+import ij.process.ShortProcessor;
+import io.github.cleave.image.Raster;
+import io.github.cleave.io.ModelFiles;
+import io.github.cleave.io.ObjectsCsv;
+import io.github.cleave.objects.ObjectLabels;
+import io.github.cleave.objects.ObjectMeasurement;
+import io.github.cleave.objects.RoiExport;
+import io.github.cleave.segment.Segmentation;
+import io.github.cleave.segment.SoftwareVersion;
+import java.awt.GraphicsEnvironment;
+import java.util.List;
+import java.util.Locale;
+
+/**
+ * A segmentation presented in ImageJ: a mask image (8-bit, 0/255), a label image (16-bit object
+ * numbers; 32-bit beyond 65535 objects), a Results table of the objects in calibrated units (the
+ * columns of {@code NAME.objects.csv}) and, with a display, the objects' ROIs in the ROI Manager.
+ * Both images carry the source image's calibration and, as their image info ({@code Image > Show
+ * Info}, saved in TIFFs), how they were made: software version, command, inputs and every setting.
+ * The source image is never changed.
+ *
+ * @param mask the mask image
+ * @param labels the label image
+ * @param table one row per object, in object-number order
+ */
+record ResultImages(ImagePlus mask, ImagePlus labels, ResultsTable table) {
+
+  /**
+   * Builds the images and the table.
+   *
+   * @param source the segmented image (only read)
+   * @param raster its pixels as segmented
+   * @param command the menu command, for the image info
+   * @param inputs lines describing seeds and model, for the image info
+   */
+  static ResultImages of(
+      ImagePlus source, Raster raster, Segmentation result, String command, List<String> inputs) {
+    int w = raster.width();
+    int h = raster.height();
+    int d = raster.depth();
+    String base = baseTitle(source.getTitle());
+    String info = info(source, result, command, inputs);
+    ImagePlus mask = new ImagePlus(base + ".mask", maskStack(result.mask(), w, h, d));
+    ImagePlus labels = new ImagePlus(base + ".labels", labelStack(result.objects()));
+    for (ImagePlus imp : new ImagePlus[] {mask, labels}) {
+      imp.setDimensions(1, d, 1);
+      imp.setCalibration(source.getCalibration().copy());
+      imp.setProperty("Info", info);
+    }
+    labels.setDisplayRange(0, Math.max(1, result.objects().count()));
+    return new ResultImages(mask, labels, table(result, raster));
+  }
+
+  /** The title of the table shown: ImageJ's own Results table, which macros read and save. */
+  static final String TABLE = "Results";
+
+  /**
+   * Shows the images and the table (as ImageJ's Results table) and, if asked, adds the objects'
+   * ROIs to the ROI Manager; with no display only batch-mode images are kept (nothing is shown).
+   */
+  void show(Segmentation result, boolean roisToManager) {
+    boolean headless = GraphicsEnvironment.isHeadless();
+    if (!headless || Interpreter.isBatchMode()) {
+      mask.show();
+      labels.show();
+    }
+    if (!headless) {
+      table.show(TABLE);
+      if (roisToManager) {
+        RoiManager rm = RoiManager.getRoiManager();
+        for (Roi roi : RoiExport.rois(result.objects())) {
+          rm.addRoi(roi);
+        }
+      }
+    }
+  }
+
+  /** The image info text of a result. */
+  static String info(ImagePlus source, Segmentation result, String command, List<String> inputs) {
+    StringBuilder sb = new StringBuilder();
+    sb.append("Made by Cleave ").append(SoftwareVersion.get()).append('\n');
+    sb.append("command: ").append(command).append('\n');
+    sb.append("image: ").append(source.getTitle()).append('\n');
+    for (String line : inputs) {
+      sb.append(line).append('\n');
+    }
+    sb.append("settings: ")
+        .append(ModelFiles.settingsToJson(result.model().settings()))
+        .append('\n');
+    sb.append(
+        String.format(
+            Locale.ROOT,
+            "contrast scale used: %s%nflow value = cut value: %d%nenergy: %.6f nats%n",
+            result.model().contrastScale(),
+            result.flowValue(),
+            result.energy()));
+    sb.append("objects: ").append(result.objects().count()).append('\n');
+    sb.append("calibration: ").append(result.voxelSize()).append('\n');
+    for (String warning : result.warnings()) {
+      sb.append("note: ").append(warning).append('\n');
+    }
+    sb.append("A research tool, not a diagnostic device: validate against expert annotation.\n");
+    return sb.toString();
+  }
+
+  /** The measurements as a Results table with the columns of the objects CSV. */
+  static ResultsTable table(Segmentation result, Raster raster) {
+    boolean stack = raster.depth() > 1;
+    int[] channels = result.model().settings().measuredChannels();
+    if (channels == null) {
+      channels = new int[raster.channelCount()];
+      for (int c = 0; c < channels.length; c++) {
+        channels[c] = c;
+      }
+    }
+    String[] header =
+        ObjectsCsv.header(stack, result.voxelSize().unit(), channels, false).split(",");
+    ResultsTable rt = new ResultsTable();
+    rt.setPrecision(6);
+    for (ObjectMeasurement m : result.measurements()) {
+      String[] row = ObjectsCsv.row(m, stack, null).split(",");
+      rt.incrementCounter();
+      for (int i = 0; i < header.length; i++) {
+        rt.addValue(header[i], Double.parseDouble(row[i]));
+      }
+    }
+    return rt;
+  }
+
+  static String baseTitle(String title) {
+    int dot = title.lastIndexOf('.');
+    return dot > 0 ? title.substring(0, dot) : title;
+  }
+
+  private static ImageStack maskStack(byte[] mask, int w, int h, int d) {
+    ImageStack stack = new ImageStack(w, h);
+    int plane = w * h;
+    for (int z = 0; z < d; z++) {
+      byte[] p = new byte[plane];
+      System.arraycopy(mask, z * plane, p, 0, plane);
+      stack.addSlice(null, new ByteProcessor(w, h, p));
+    }
+    return stack;
+  }
+
+  private static ImageStack labelStack(ObjectLabels objects) {
+    int w = objects.width();
+    int h = objects.height();
+    int plane = w * h;
+    int[] labels = objects.labels();
+    boolean shorts = objects.count() <= 65535;
+    ImageStack stack = new ImageStack(w, h);
+    for (int z = 0; z < objects.depth(); z++) {
+      ImageProcessor ip;
+      if (shorts) {
+        short[] p = new short[plane];
+        for (int i = 0; i < plane; i++) {
+          p[i] = (short) labels[z * plane + i];
+        }
+        ip = new ShortProcessor(w, h, p, null);
+      } else {
+        float[] p = new float[plane];
+        for (int i = 0; i < plane; i++) {
+          p[i] = labels[z * plane + i];
+        }
+        ip = new FloatProcessor(w, h, p);
+      }
+      stack.addSlice(null, ip);
+    }
+    return stack;
+  }
+}

@@ -1,0 +1,223 @@
+package io.github.cleave.imagej;
+
+import ij.IJ;
+import ij.ImageJ;
+import ij.ImagePlus;
+import ij.WindowManager;
+import ij.gui.ImageCanvas;
+import io.github.cleave.quality.Agreement;
+import java.awt.Button;
+import java.awt.Component;
+import java.awt.Container;
+import java.awt.EventQueue;
+import java.awt.Frame;
+import java.awt.Point;
+import java.awt.Rectangle;
+import java.awt.Robot;
+import java.awt.Scrollbar;
+import java.awt.Toolkit;
+import java.awt.event.InputEvent;
+import java.awt.event.KeyEvent;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Properties;
+import java.util.function.BooleanSupplier;
+import javax.imageio.ImageIO;
+
+/**
+ * Drives the seed brush in a real ImageJ as a user would, in a child JVM of {@link
+ * SeedBrushGuiTest} (so that ImageJ's static state and preferences stay out of the test JVM):
+ * paints one foreground stroke and, with Alt held, one background stroke with java.awt.Robot, waits
+ * for the live cut, presses "Create mask", then clicks the boundary penalty slider's track and
+ * waits for the new cut. Writes what it saw to {@code OUT/result.properties} and screenshots to
+ * {@code OUT}; exits 0 when the scenario ran (the test judges the values).
+ */
+public final class BrushDriver {
+  static final Path SAMPLES = Path.of("sample-images");
+
+  private BrushDriver() {}
+
+  public static void main(String[] args) throws Exception {
+    Path shots = Files.createDirectories(Path.of(args[0]));
+    Properties result = new Properties();
+    ImageJ ij = new ImageJ();
+    ImagePlus imp = IJ.openImage(SAMPLES.resolve("nuclei.tif").toString());
+    imp.show();
+    waitFor(() -> imp.getWindow() != null && imp.getCanvas().isShowing(), 20_000, "image window");
+    WindowManager.setCurrentWindow(imp.getWindow());
+    new CommandGate().run("SeedBrushCommand");
+    BrushSession session = SeedBrushTool.get().session(imp);
+    BrushPanel panel = panel();
+    EventQueue.invokeAndWait(() -> panel.setLocation(0, 0));
+    EventQueue.invokeAndWait(() -> imp.getWindow().setLocation(panel.getWidth() + 10, 0));
+    Robot robot = new Robot();
+    robot.setAutoDelay(5);
+    robot.waitForIdle();
+    Thread.sleep(500);
+
+    StrokePlan plan = StrokePlan.of(SAMPLES.resolve("nuclei.seeds.tif"));
+    EventQueue.invokeAndWait(() -> session.setSettings(session.settings().withWidth(3), false));
+    drag(robot, imp, plan.foreground(), false);
+    drag(robot, imp, plan.background(), true);
+    waitFor(() -> session.strokes.strokes().size() == 2, 10_000, "two strokes");
+    result.setProperty("stroke1", "" + session.strokes.strokes().get(0).label());
+    result.setProperty("stroke2", "" + session.strokes.strokes().get(1).label());
+    waitFor(
+        () -> session.lastMask() != null && panel.statusText().contains("re-learned"),
+        30_000,
+        "live cut after re-learning");
+    byte[] before = session.lastMask();
+    result.setProperty("status", panel.statusText());
+    save(robot, shots.resolve("brush-contour.png"));
+
+    click(robot, button(panel, "Create mask"));
+    waitFor(() -> WindowManager.getImage("nuclei.mask") != null, 120_000, "mask window");
+    ImagePlus mask = WindowManager.getImage("nuclei.mask");
+    ImagePlus truth = IJ.openImage(SAMPLES.resolve("nuclei.truth.tif").toString());
+    result.setProperty(
+        "dice",
+        ""
+            + Agreement.dice(
+                (byte[]) mask.getProcessor().getPixels(),
+                (byte[]) truth.getProcessor().getPixels()));
+    result.setProperty("info", (String) mask.getProperty("Info"));
+    mask.changes = false;
+    mask.close();
+
+    Scrollbar slider = slider(panel);
+    int start = slider.getValue();
+    for (int i = 0; i < 8; i++) {
+      clickTrackRight(robot, slider);
+    }
+    waitFor(() -> slider.getValue() > start, 10_000, "slider moved");
+    waitFor(
+        () -> session.lastMask() != before && panel.statusText().contains("full solve"),
+        30_000,
+        "cut after the slider");
+    byte[] after = session.lastMask();
+    result.setProperty("sliderFrom", "" + start);
+    result.setProperty("sliderTo", "" + slider.getValue());
+    result.setProperty("changed", "" + !java.util.Arrays.equals(before, after));
+    result.setProperty("boundaryBefore", "" + boundaryPairs(before, 512, 512));
+    result.setProperty("boundaryAfter", "" + boundaryPairs(after, 512, 512));
+    save(robot, shots.resolve("brush-after-slider.png"));
+    EventQueue.invokeAndWait(panel::dispose);
+    result.setProperty("overlayRestored", "" + (imp.getOverlay() == null));
+    try (var out = Files.newOutputStream(shots.resolve("result.properties"))) {
+      result.store(out, "seed brush scenario");
+    }
+    Runtime.getRuntime().halt(0); // no quit: ImageJ would save its preferences
+  }
+
+  private static void drag(Robot robot, ImagePlus imp, int[] run, boolean alt) {
+    ImageCanvas c = imp.getCanvas();
+    Point o = c.getLocationOnScreen();
+    double mag = c.getMagnification();
+    Rectangle src = c.getSrcRect();
+    int y = o.y + (int) Math.round((run[1] + 0.5 - src.y) * mag);
+    int x0 = o.x + (int) Math.round((run[0] + 0.5 - src.x) * mag);
+    int x1 = o.x + (int) Math.round((run[2] + 0.5 - src.x) * mag);
+    robot.mouseMove(x0, y);
+    if (alt) {
+      robot.keyPress(KeyEvent.VK_ALT);
+    }
+    robot.mousePress(InputEvent.BUTTON1_DOWN_MASK);
+    for (int i = 1; i <= 10; i++) {
+      robot.mouseMove(x0 + (x1 - x0) * i / 10, y);
+    }
+    robot.mouseRelease(InputEvent.BUTTON1_DOWN_MASK);
+    if (alt) {
+      robot.keyRelease(KeyEvent.VK_ALT);
+    }
+    robot.waitForIdle();
+  }
+
+  private static void click(Robot robot, Component c) {
+    Point p = c.getLocationOnScreen();
+    robot.mouseMove(p.x + c.getWidth() / 2, p.y + c.getHeight() / 2);
+    robot.mousePress(InputEvent.BUTTON1_DOWN_MASK);
+    robot.mouseRelease(InputEvent.BUTTON1_DOWN_MASK);
+    robot.waitForIdle();
+  }
+
+  private static void clickTrackRight(Robot robot, Scrollbar s) {
+    Point p = s.getLocationOnScreen();
+    robot.mouseMove(
+        p.x + s.getWidth() * 17 / 20, p.y + s.getHeight() / 2); // track, right of the thumb
+    robot.mousePress(InputEvent.BUTTON1_DOWN_MASK);
+    robot.mouseRelease(InputEvent.BUTTON1_DOWN_MASK);
+    robot.waitForIdle();
+  }
+
+  private static void save(Robot robot, Path file) throws Exception {
+    Rectangle screen = new Rectangle(Toolkit.getDefaultToolkit().getScreenSize());
+    ImageIO.write(robot.createScreenCapture(screen), "png", file.toFile());
+  }
+
+  private static BrushPanel panel() {
+    for (Frame f : Frame.getFrames()) {
+      if (f instanceof BrushPanel p && p.isShowing()) {
+        return p;
+      }
+    }
+    throw new AssertionError("the seed brush panel is not showing");
+  }
+
+  private static Button button(Container c, String label) {
+    for (Component k : c.getComponents()) {
+      if (k instanceof Button b && b.getLabel().equals(label)) {
+        return b;
+      }
+      if (k instanceof Container inner) {
+        try {
+          return button(inner, label);
+        } catch (AssertionError e) {
+          // not in this one
+        }
+      }
+    }
+    throw new AssertionError("no button " + label);
+  }
+
+  private static Scrollbar slider(Container c) {
+    for (Component k : c.getComponents()) {
+      if (k instanceof Scrollbar s) {
+        return s;
+      }
+      if (k instanceof Container inner) {
+        Scrollbar s = slider(inner);
+        if (s != null) {
+          return s;
+        }
+      }
+    }
+    return null;
+  }
+
+  /** Foreground-background pairs of 4-neighbours: the boundary length in pixel edges. */
+  static long boundaryPairs(byte[] m, int w, int h) {
+    long n = 0;
+    for (int y = 0; y < h; y++) {
+      for (int x = 0; x < w; x++) {
+        int i = y * w + x;
+        if (x + 1 < w && m[i] != m[i + 1]) {
+          n++;
+        }
+        if (y + 1 < h && m[i] != m[i + w]) {
+          n++;
+        }
+      }
+    }
+    return n;
+  }
+
+  static void waitFor(BooleanSupplier done, long millis, String what) throws Exception {
+    long end = System.currentTimeMillis() + millis;
+    while (!done.getAsBoolean()) {
+      if (System.currentTimeMillis() > end) {
+        throw new AssertionError("timed out waiting for " + what);
+      }
+      Thread.sleep(50);
+    }
+  }
+}
