@@ -41,8 +41,10 @@ import java.util.concurrent.CancellationException;
  *       interior voxel and the background level of the nearest ring voxel, both reached through the
  *       band (breadth-first, axial steps), so each edge is judged against its own object, even
  *       where a dim and a bright object touch.
- *   <li>Shared variance s², per channel: the mean squared deviation of the interior and ring voxels
- *       from their local levels.
+ *   <li>Shared variance s², per channel: the mean squared deviation of those interior and ring
+ *       voxels (the ones some band voxel takes its levels from) from their local levels. Levels are
+ *       computed only there, by direct sums over their windows, so the cost follows the length of
+ *       the boundary, not the size of the image.
  *   <li>Costs in the band: {@code D_p(c) = Σ_channels (I_p − μ_c)² / 2s²}, minus the smaller of the
  *       two (only the difference matters). Outside the band, and in band voxels that reach no
  *       interior or no ring voxel, the labels of the cut are fixed, and so are the seeds. The band
@@ -67,6 +69,13 @@ final class EdgeRefinement {
 
   /** Width of the background ring beyond the band, in pixel widths (our choice, no source). */
   static final int RING = 3;
+
+  /**
+   * The shared variance is estimated from every {@value}-th voxel (in raster order) among the
+   * interior and ring voxels: a fixed, deterministic sample, prime so that it does not align with
+   * rows (our choice, no source).
+   */
+  static final int VARIANCE_STRIDE = 7;
 
   /** Half-width of the window of the local levels, in pixel widths (our choice, no source). */
   static final int WINDOW = 2;
@@ -110,7 +119,14 @@ final class EdgeRefinement {
     }
     int[] objectSource = nearest(inside, band, w, h, d, planes);
     int[] backgroundSource = nearest(ring, band, w, h, d, planes);
-    Levels levels = Levels.measure(features, inside, ring, zReach(WINDOW, features, planes));
+    Levels levels =
+        Levels.measure(
+            features,
+            inside,
+            ring,
+            objectSource,
+            backgroundSource,
+            zReach(WINDOW, features, planes));
     int channels = features.channelCount();
     float[][] costs = new float[2][n];
     byte[] hard = seeds.labels().clone();
@@ -161,42 +177,90 @@ final class EdgeRefinement {
         problem.mask(result), result.flowValue(), buildMs, result.solveNanos() / 1e6);
   }
 
-  /** Local object and background levels per channel, and the shared variance per channel. */
+  /**
+   * Local object and background levels per channel, at the interior and ring voxels that some band
+   * voxel takes its levels from (elsewhere 0), and the shared variance per channel.
+   */
   private record Levels(float[][] object, float[][] background, double[] variance) {
-    static Levels measure(Raster features, float[] inside, float[] ring, int windowZ) {
-      int n = inside.length;
-      BoxSums box =
-          new BoxSums(
-              features.width(), features.height(), features.depth(), WINDOW, WINDOW, windowZ);
-      float[] insideCount = box.sum(inside, null);
-      float[] ringCount = box.sum(ring, null);
+    static Levels measure(
+        Raster features,
+        float[] inside,
+        float[] ring,
+        int[] objectSource,
+        int[] backgroundSource,
+        int windowZ) {
+      int[] objectSources = distinct(objectSource);
+      int[] backgroundSources = distinct(backgroundSource);
       int channels = features.channelCount();
       float[][] object = new float[channels][];
       float[][] background = new float[channels][];
       double[] variance = new double[channels];
       for (int c = 0; c < channels; c++) {
         float[] v = features.channel(c);
-        object[c] = box.sum(v, inside);
-        background[c] = box.sum(v, ring);
+        object[c] = new float[v.length];
+        background[c] = new float[v.length];
+        windowMeans(features, v, inside, objectSources, windowZ, object[c]);
+        windowMeans(features, v, ring, backgroundSources, windowZ, background[c]);
         double ss = 0;
         long m = 0;
-        for (int p = 0; p < n; p++) {
-          double e;
-          if (inside[p] != 0) {
-            object[c][p] /= insideCount[p];
-            e = v[p] - object[c][p];
-          } else if (ring[p] != 0) {
-            background[c][p] /= ringCount[p];
-            e = v[p] - background[c][p];
-          } else {
-            continue;
+        for (int p = 0; p < v.length; p += VARIANCE_STRIDE) {
+          float[] members = inside[p] != 0 ? inside : ring[p] != 0 ? ring : null;
+          if (members != null) {
+            double e = v[p] - windowMean(features, v, members, p, windowZ);
+            ss += e * e;
+            m++;
           }
-          ss += e * e;
-          m++;
         }
         variance[c] = m > 0 ? ss / m : 0;
       }
       return new Levels(object, background, variance);
+    }
+
+    /**
+     * At each of {@code sources}, the mean of {@code v} over the voxels of {@code members} in the
+     * window of ±{@link #WINDOW} widths (±{@code windowZ} planes), stored in {@code out}.
+     */
+    private static void windowMeans(
+        Raster features, float[] v, float[] members, int[] sources, int windowZ, float[] out) {
+      for (int s : sources) {
+        out[s] = (float) windowMean(features, v, members, s, windowZ);
+      }
+    }
+
+    /** The mean of {@code v} over the members in the window around member {@code s}. */
+    private static double windowMean(
+        Raster features, float[] v, float[] members, int s, int windowZ) {
+      int w = features.width();
+      int h = features.height();
+      int d = features.depth();
+      int x = s % w;
+      int y = s / w % h;
+      int z = s / (w * h);
+      double sum = 0;
+      int count = 0;
+      for (int z2 = Math.max(0, z - windowZ); z2 <= Math.min(d - 1, z + windowZ); z2++) {
+        for (int y2 = Math.max(0, y - WINDOW); y2 <= Math.min(h - 1, y + WINDOW); y2++) {
+          int row = w * (y2 + h * z2);
+          for (int x2 = Math.max(0, x - WINDOW); x2 <= Math.min(w - 1, x + WINDOW); x2++) {
+            if (members[row + x2] != 0) {
+              sum += v[row + x2];
+              count++;
+            }
+          }
+        }
+      }
+      return sum / count; // count >= 1: s itself is a member
+    }
+
+    /** The distinct non-negative values of {@code sources}, ascending. */
+    private static int[] distinct(int[] sources) {
+      java.util.BitSet seen = new java.util.BitSet(sources.length);
+      for (int s : sources) {
+        if (s >= 0) {
+          seen.set(s);
+        }
+      }
+      return seen.stream().toArray();
     }
   }
 

@@ -131,37 +131,6 @@ class EdgeRefinementTest {
     }
   }
 
-  @Test
-  void boxSumsMatchDirectSums() {
-    SplittableRandom random = new SplittableRandom(5);
-    for (int trial = 0; trial < 30; trial++) {
-      int w = 1 + random.nextInt(9);
-      int h = 1 + random.nextInt(9);
-      int d = 1 + random.nextInt(4);
-      int rx = random.nextInt(4);
-      int ry = random.nextInt(4);
-      int rz = random.nextInt(3);
-      float[] values = new float[w * h * d];
-      float[] weights = new float[values.length];
-      for (int i = 0; i < values.length; i++) {
-        values[i] = random.nextInt(100);
-        weights[i] = random.nextInt(2);
-      }
-      float[] sums = new BoxSums(w, h, d, rx, ry, rz).sum(values, weights);
-      for (int i = 0; i < values.length; i++) {
-        double expected = 0;
-        for (int j = 0; j < values.length; j++) {
-          if (Math.abs(i % w - j % w) <= rx
-              && Math.abs(i / w % h - j / w % h) <= ry
-              && Math.abs(i / (w * h) - j / (w * h)) <= rz) {
-            expected += values[j] * weights[j];
-          }
-        }
-        assertThat((double) sums[i]).as("trial %d voxel %d", trial, i).isEqualTo(expected);
-      }
-    }
-  }
-
   private static EnergyParameters parameters(Neighborhood nb) {
     return parameters(nb, VoxelSize.PIXELS);
   }
