@@ -75,7 +75,7 @@ final class EdgeRefinement {
    * interior and ring voxels: a fixed, deterministic sample, prime so that it does not align with
    * rows (our choice, no source).
    */
-  static final int VARIANCE_STRIDE = 7;
+  static final int VARIANCE_STRIDE = 29;
 
   /** Half-width of the window of the local levels, in pixel widths (our choice, no source). */
   static final int WINDOW = 2;
