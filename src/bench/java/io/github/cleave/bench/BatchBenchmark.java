@@ -34,7 +34,7 @@ import java.util.stream.Stream;
  *
  * <p>Arguments ({@code key=value}): {@code images=24}, {@code size=512}, {@code threads=1,2},
  * {@code warmup=1}, {@code repeats=3}, {@code seed=20261202}, {@code dir=} (work folder; default a
- * temporary one). The word {@code all} is ignored.
+ * temporary one), {@code rounds=3} (refinement rounds of the model, the default). The word {@code all} is ignored.
  */
 public final class BatchBenchmark {
   private BatchBenchmark() {}
@@ -48,6 +48,7 @@ public final class BatchBenchmark {
     o.put("repeats", "3");
     o.put("seed", Long.toString(SamplePhantoms.DEFAULT_SEED));
     o.put("dir", "");
+    o.put("rounds", Integer.toString(SegmentationSettings.defaults().refinementRounds()));
     for (String arg : args) {
       if (arg.equals("all")) {
         continue;
@@ -78,17 +79,24 @@ public final class BatchBenchmark {
     Path model = dir.resolve("model.json");
     ModelFiles.write(
         model,
-        Segmenter.learn(learnFrom.image(), learnFrom.seeds(), SegmentationSettings.defaults()));
+        Segmenter.learn(
+            learnFrom.image(),
+            learnFrom.seeds(),
+            SegmentationSettings.defaults().toBuilder()
+                .refinementRounds(Integer.parseInt(o.get("rounds")))
+                .build()));
 
     double load = ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage();
     System.out.println(GridBenchmark.machine());
     System.out.println(
         String.format(
             Locale.ROOT,
-            "%d images of %d x %d, 16-bit grey; load average before the runs %.2f",
+            "%d images of %d x %d, 16-bit grey; model with %s refinement rounds; load average"
+                + " before the runs %.2f",
             images,
             size,
             size,
+            o.get("rounds"),
             load));
     System.out.println();
     System.out.println("| threads | median s | images/s | efficiency | runs (s) |");
