@@ -50,6 +50,9 @@ public final class BrushDriver {
     BrushPanel panel = panel();
     EventQueue.invokeAndWait(() -> panel.setLocation(0, 0));
     EventQueue.invokeAndWait(() -> imp.getWindow().setLocation(panel.getWidth() + 10, 0));
+    // No window manager under Xvfb: keep ImageJ's own window clear of the panel, and raise the
+    // panel before every click (a Log or Results window may open over it).
+    EventQueue.invokeAndWait(() -> ij.setLocation(0, panel.getHeight() + 300));
     Robot robot = new Robot();
     robot.setAutoDelay(5);
     robot.waitForIdle();
@@ -70,8 +73,14 @@ public final class BrushDriver {
     result.setProperty("status", panel.statusText());
     save(robot, shots.resolve("brush-contour.png"));
 
-    click(robot, button(panel, "Create mask"));
-    waitFor(() -> WindowManager.getImage("nuclei.mask") != null, 120_000, "mask window");
+    Button create = button(panel, "Create mask");
+    for (int attempt = 0; WindowManager.getImage("nuclei.mask") == null; attempt++) {
+      if (attempt == 3) {
+        throw new AssertionError("timed out waiting for mask window after three clicks");
+      }
+      clickOnTop(robot, panel, create);
+      holds(() -> WindowManager.getImage("nuclei.mask") != null, 60_000);
+    }
     ImagePlus mask = WindowManager.getImage("nuclei.mask");
     ImagePlus truth = IJ.openImage(SAMPLES.resolve("nuclei.truth.tif").toString());
     result.setProperty(
@@ -86,7 +95,9 @@ public final class BrushDriver {
 
     Scrollbar slider = slider(panel);
     int start = slider.getValue();
-    for (int i = 0; i < 8; i++) {
+    for (int i = 0; i < 8 || slider.getValue() <= start && i < 40; i++) {
+      EventQueue.invokeAndWait(panel::toFront);
+      robot.waitForIdle();
       clickTrackRight(robot, slider);
     }
     waitFor(() -> slider.getValue() > start, 10_000, "slider moved");
@@ -138,6 +149,14 @@ public final class BrushDriver {
     robot.mousePress(InputEvent.BUTTON1_DOWN_MASK);
     robot.mouseRelease(InputEvent.BUTTON1_DOWN_MASK);
     robot.waitForIdle();
+  }
+
+  /** Raises {@code frame} (no window manager keeps it on top), then clicks {@code c}. */
+  private static void clickOnTop(Robot robot, Frame frame, Component c) throws Exception {
+    EventQueue.invokeAndWait(frame::toFront);
+    robot.waitForIdle();
+    Thread.sleep(200);
+    click(robot, c);
   }
 
   private static void clickTrackRight(Robot robot, Scrollbar s) {
@@ -209,6 +228,18 @@ public final class BrushDriver {
       }
     }
     return n;
+  }
+
+  /** Whether {@code done} holds within {@code millis}. */
+  static boolean holds(BooleanSupplier done, long millis) throws InterruptedException {
+    long end = System.currentTimeMillis() + millis;
+    while (!done.getAsBoolean()) {
+      if (System.currentTimeMillis() > end) {
+        return false;
+      }
+      Thread.sleep(50);
+    }
+    return true;
   }
 
   static void waitFor(BooleanSupplier done, long millis, String what) throws Exception {
