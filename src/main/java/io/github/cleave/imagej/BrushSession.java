@@ -17,6 +17,8 @@ import io.github.cleave.model.LikelihoodModel;
 import io.github.cleave.model.ModelKind;
 import io.github.cleave.model.ModelLearner;
 import io.github.cleave.render.OverlayPicture;
+import io.github.cleave.segment.Illumination;
+import io.github.cleave.segment.SegmentationSettings;
 import java.awt.Color;
 import java.awt.EventQueue;
 import java.util.List;
@@ -58,6 +60,7 @@ final class BrushSession implements ImageListener {
 
   // worker thread only
   private LiveCut live;
+  private Raster cutFeatures; // the features the live cut uses: flattened when AUTO would
   private String liveKey;
   private LikelihoodModel model;
   private ModelKind modelKind;
@@ -164,14 +167,15 @@ final class BrushSession implements ImageListener {
           show(gen, null, -1, "paint a foreground and a background stroke to see the cut");
           return;
         }
-        model = ModelLearner.learn(features, seeds, s.likelihood());
+        cutFeatures = liveFeatures(seeds);
+        model = ModelLearner.learn(cutFeatures, seeds, s.likelihood());
         modelKind = s.likelihood();
         live = null;
       }
       Neighborhood nb = neighborhood(s.neighborhood(), volume);
       String key = (volume ? "volume" : "plane " + plane) + " " + nb;
       if (live == null || !key.equals(liveKey)) {
-        live = new LiveCut(volume ? features : plane(features, plane), nb);
+        live = new LiveCut(volume ? cutFeatures : plane(cutFeatures, plane), nb);
         live.useModel(model);
         liveKey = key;
       }
@@ -191,6 +195,18 @@ final class BrushSession implements ImageListener {
     } catch (RuntimeException e) {
       show(gen, null, -1, "cannot cut: " + e.getMessage());
     }
+  }
+
+  /**
+   * The features of the live cut: flattened by the rolling ball when the pipeline's AUTO rule would
+   * flatten them for these seeds (so that the live contour and the created mask see the same
+   * image), else as they are. Decided again at every re-learning, after a pause in painting.
+   */
+  private Raster liveFeatures(SeedLabels seeds) {
+    boolean light = Illumination.isLightBackground(features, seeds);
+    Illumination.Flattening f =
+        Illumination.flatten(features, seeds, SegmentationSettings.DEFAULT_FLATTEN_RADIUS, light);
+    return Illumination.shouldFlatten(f) ? f.flattened() : features;
   }
 
   private void show(long gen, byte[] newMask, int plane, String line) {

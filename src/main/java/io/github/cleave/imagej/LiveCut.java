@@ -27,9 +27,10 @@ import io.github.cleave.model.LikelihoodModel;
  * boundary penalty or contrast scale rebuilds the graph and solves it from scratch: O(n · K) to
  * build plus the solve.
  *
- * <p>This is the plain minimum cut (no illumination flattening, refinement rounds, edge placement
- * or object rules); the commands that make masks run the whole pipeline. Labels above 2 count as no
- * seed here. Not thread-safe: one worker thread owns an instance.
+ * <p>This is the plain minimum cut of the features it is given (the brush session gives it the
+ * features flattened when the pipeline's AUTO rule would flatten them; there are no refinement
+ * rounds, edge placement or object rules); the commands that make masks run the whole pipeline.
+ * Labels above 2 count as no seed here. Not thread-safe: one worker thread owns an instance.
  */
 final class LiveCut {
   private final Raster features;
