@@ -47,7 +47,6 @@ final class BoundaryArcs {
    */
   static int set(GridMaxFlow solver, Raster features, EnergyParameters parameters, int budget) {
     Neighborhood nb = parameters.neighborhood();
-    double[] lengthWeight = parameters.lengthWeights();
     double sigma = parameters.contrastScale();
     double inverseTwoSigmaSquared = 1.0 / (2 * sigma * sigma);
     int n = features.size();
@@ -55,34 +54,22 @@ final class BoundaryArcs {
     for (int c = 0; c < channels.length; c++) {
       channels[c] = features.channel(c);
     }
-    int greyRange = channels.length == 1 ? integerRange(channels[0]) : -1;
-    int[] grey = null; // the one channel as ints, when tables by difference apply
+    PairCapacities pairs = new PairCapacities(features, parameters, budget);
     int[] caps = new int[n];
     int[] sum = new int[n];
-    double lastScale = Double.NaN;
-    Object lastTable = null;
     for (int k = 0; k < nb.size(); k += 2) {
-      double scale = parameters.boundaryPenalty() * lengthWeight[k] * CapacityScale.UNITS_PER_NAT;
-      Object table = scale == lastScale ? lastTable : null;
-      if (table == null) {
-        table = table(scale, inverseTwoSigmaSquared, greyRange, budget);
-      }
-      lastScale = scale;
-      lastTable = table;
-      if (table instanceof int[] && grey == null) {
-        grey = toInts(channels[0]);
-      }
+      Object table = pairs.tables[k];
       Rows rows = new Rows(features, nb, k);
       int step = rows.step;
       for (int r = 0; r < rows.count; r++) {
         int from = rows.from(r);
         int to = from + rows.length;
         if (table instanceof int[] differences) {
-          greyRow(grey, differences, from, to, step, caps);
+          greyRow(pairs.grey, differences, from, to, step, caps);
         } else if (table instanceof ExponentialSteps steps) {
           stepsRow(channels, steps, inverseTwoSigmaSquared, from, to, step, caps);
         } else {
-          directRow(channels, scale, inverseTwoSigmaSquared, from, to, step, caps);
+          directRow(channels, pairs.scales[k], inverseTwoSigmaSquared, from, to, step, caps);
         }
         for (int p = from; p < to; p++) {
           int cap = caps[p];
@@ -114,6 +101,11 @@ final class BoundaryArcs {
     private final double inverseTwoSigmaSquared;
 
     PairCapacities(Raster features, EnergyParameters parameters) {
+      this(features, parameters, features.size() / 4);
+    }
+
+    /** With tables allowed to cost at most {@code budget} exponentials per direction. */
+    PairCapacities(Raster features, EnergyParameters parameters, int budget) {
       Neighborhood nb = parameters.neighborhood();
       double sigma = parameters.contrastScale();
       inverseTwoSigmaSquared = 1.0 / (2 * sigma * sigma);
@@ -122,7 +114,6 @@ final class BoundaryArcs {
         channels[c] = features.channel(c);
       }
       int greyRange = channels.length == 1 ? integerRange(channels[0]) : -1;
-      int budget = features.size() / 4;
       tables = new Object[nb.size()];
       scales = new double[nb.size()];
       steps = new int[nb.size()];

@@ -28,23 +28,54 @@ import java.util.Locale;
  *
  * Building is O(n · K) for n voxels and K neighbours, with {@code K/2} boundary weights per voxel
  * (each unordered pair once, by table look-up where the image allows: see {@code BoundaryArcs});
- * the solver's memory is that of {@link GridMaxFlow} plus four temporary int arrays of n entries
- * during the build, and two kept for {@link #changeRegionalCosts}. Not thread-safe.
+ * the solver's memory is that of {@link GridMaxFlow} plus three temporary int arrays of n entries
+ * during the build, and two int arrays and a copy of the seeds kept for {@link
+ * #changeRegionalCosts} and {@link #changeSeeds}. Not thread-safe.
  */
 public final class CutProblem {
   private final GridMaxFlow solver;
   private final int hardCapacity;
   private final int[] source; // present capacity source -> p, in node order
   private final int[] sink; // present capacity p -> sink
-  private final byte[] seedLabels; // the seeds, shared with the caller's SeedLabels
+  private final byte[] seedLabels; // the present seeds, our own copy
+  private float[] foregroundCost; // the present regional costs, the caller's arrays
+  private float[] backgroundCost;
 
   private CutProblem(
-      GridMaxFlow solver, int hardCapacity, int[] source, int[] sink, byte[] seedLabels) {
+      GridMaxFlow solver,
+      int hardCapacity,
+      byte[] seedLabels,
+      float[] foregroundCost,
+      float[] backgroundCost) {
     this.solver = solver;
     this.hardCapacity = hardCapacity;
-    this.source = source;
-    this.sink = sink;
     this.seedLabels = seedLabels;
+    this.foregroundCost = foregroundCost;
+    this.backgroundCost = backgroundCost;
+    this.source = new int[seedLabels.length];
+    this.sink = new int[seedLabels.length];
+    for (int p = 0; p < seedLabels.length; p++) {
+      setTerminals(p);
+    }
+  }
+
+  /**
+   * The terminal capacities of voxel p from its seed label and regional costs: a foreground seed
+   * {@code source → p = K, p → sink = 0}, a background seed the reverse, any other voxel {@code
+   * D_p(bg)} and {@code D_p(fg)}.
+   */
+  private void setTerminals(int p) {
+    int label = seedLabels[p];
+    if (label == SeedLabels.FOREGROUND) {
+      source[p] = hardCapacity;
+      sink[p] = 0;
+    } else if (label == SeedLabels.BACKGROUND) {
+      source[p] = 0;
+      sink[p] = hardCapacity;
+    } else {
+      source[p] = CapacityScale.toCapacity(backgroundCost[p]);
+      sink[p] = CapacityScale.toCapacity(foregroundCost[p]);
+    }
   }
 
   /**
@@ -81,24 +112,10 @@ public final class CutProblem {
         new GridMaxFlow(
             features.width(), features.height(), features.depth(), nb, retainCapacities);
     int hard = BoundaryArcs.set(solver, features, parameters) + 1;
-    int[] source = new int[n];
-    int[] sink = new int[n];
-    byte[] labels = seeds.labels();
-    for (int p = 0; p < n; p++) {
-      int label = labels[p];
-      if (label == SeedLabels.FOREGROUND) {
-        source[p] = hard;
-        sink[p] = 0;
-      } else if (label == SeedLabels.BACKGROUND) {
-        source[p] = 0;
-        sink[p] = hard;
-      } else {
-        source[p] = CapacityScale.toCapacity(backgroundCost[p]);
-        sink[p] = CapacityScale.toCapacity(foregroundCost[p]);
-      }
-    }
-    solver.setTerminalCapacities(source, sink);
-    return new CutProblem(solver, hard, source, sink, labels); // the solver copied the values
+    CutProblem problem =
+        new CutProblem(solver, hard, seeds.labels().clone(), foregroundCost, backgroundCost);
+    solver.setTerminalCapacities(problem.source, problem.sink);
+    return problem; // the solver copied the values
   }
 
   /** Throws unless {@code nb} is a 2D neighbourhood for a plane or a 3D one for a stack. */
@@ -133,25 +150,58 @@ public final class CutProblem {
               backgroundCost.length,
               n));
     }
+    this.foregroundCost = foregroundCost;
+    this.backgroundCost = backgroundCost;
     int[] sourceDelta = new int[n];
     int[] sinkDelta = new int[n];
     for (int p = 0; p < n; p++) {
-      if (seedLabels[p] == SeedLabels.FOREGROUND || seedLabels[p] == SeedLabels.BACKGROUND) {
-        continue;
+      if (seedLabels[p] != SeedLabels.FOREGROUND && seedLabels[p] != SeedLabels.BACKGROUND) {
+        retarget(p, sourceDelta, sinkDelta);
       }
-      int cs = CapacityScale.toCapacity(backgroundCost[p]);
-      int ct = CapacityScale.toCapacity(foregroundCost[p]);
-      sourceDelta[p] = cs - source[p]; // both within 0 .. Integer.MAX_VALUE: no overflow
-      sinkDelta[p] = ct - sink[p];
-      source[p] = cs;
-      sink[p] = ct;
     }
     solver.addTerminalCapacities(sourceDelta, sinkDelta);
   }
 
   /**
-   * Continues from the flow of the last solve after {@link #changeRegionalCosts}; the result equals
-   * that of a solve from scratch (same flow value, same minimal source set).
+   * Replaces the seeds, keeping the boundary arcs and the regional costs: every voxel whose label
+   * changed gets the terminal capacities of its new label (a hard constraint, or its regional costs
+   * again when it is no longer a seed). After a solve the change is applied to the present flow and
+   * search trees for {@link #resolve()} (a new stroke is the dynamic re-solve's typical case). O(n)
+   * plus the re-solve.
+   *
+   * @throws IllegalArgumentException if the size differs
+   */
+  public void changeSeeds(SeedLabels seeds) {
+    byte[] labels = seeds.labels();
+    int n = source.length;
+    if (labels.length != n) {
+      throw new IllegalArgumentException(
+          String.format(Locale.ROOT, "seeds: %d labels for %d voxels", labels.length, n));
+    }
+    int[] sourceDelta = new int[n];
+    int[] sinkDelta = new int[n];
+    for (int p = 0; p < n; p++) {
+      if (labels[p] != seedLabels[p]) {
+        seedLabels[p] = labels[p];
+        retarget(p, sourceDelta, sinkDelta);
+      }
+    }
+    solver.addTerminalCapacities(sourceDelta, sinkDelta);
+  }
+
+  /** Sets voxel p's terminals anew and records the change (both within 0 .. MAX: no overflow). */
+  private void retarget(int p, int[] sourceDelta, int[] sinkDelta) {
+    int cs = source[p];
+    int ct = sink[p];
+    setTerminals(p);
+    sourceDelta[p] = source[p] - cs;
+    sinkDelta[p] = sink[p] - ct;
+  }
+
+  /**
+   * Continues from the flow of the last solve after {@link #changeRegionalCosts} or {@link
+   * #changeSeeds}; the result equals that of a solve from scratch (same flow value, same minimal
+   * source set).
    */
   public MaxFlowResult resolve() {
     return solver.resolve();

@@ -1,6 +1,5 @@
 package io.github.cleave.imagej;
 
-import io.github.cleave.energy.CapacityScale;
 import io.github.cleave.energy.ContrastScale;
 import io.github.cleave.energy.CutProblem;
 import io.github.cleave.energy.EnergyParameters;
@@ -16,9 +15,8 @@ import io.github.cleave.model.LikelihoodModel;
  * stroke costs only a dynamic re-solve.
  *
  * <p><b>Fast path.</b> A stroke, an erased stroke or an undo changes only hard constraints: each
- * voxel whose seed label changed gets new terminal capacities (a foreground seed {@code source → p
- * = K, p → sink = 0}, a background seed the reverse, with {@code K = cut.hardCapacity()}; an
- * unseeded voxel its regional costs again), applied with {@code addTerminalCapacities} to the kept
+ * voxel whose seed label changed gets the terminal capacities of its new label ({@code
+ * CutProblem.changeSeeds}: a hard constraint, or its regional costs again), applied to the kept
  * flow and search trees, then {@code resolve()} continues from them (Kohli and Torr, "Dynamic graph
  * cuts for efficient inference in Markov random fields", IEEE TPAMI 29(12), 2007,
  * doi:10.1109/TPAMI.2007.1128). The result equals a solve from scratch of the same capacities.
@@ -44,9 +42,6 @@ final class LiveCut {
   private CutProblem cut;
   private double builtLambda = Double.NaN;
   private double builtSigma = Double.NaN;
-  private byte[] applied; // the seed labels the kept cut holds (0, 1, 2)
-  private int[] source; // present source capacities of the kept cut
-  private int[] sink; // present sink capacities
 
   /** The outcome of one update. */
   record Outcome(
@@ -105,11 +100,14 @@ final class LiveCut {
       }
       s = sigma;
     }
-    byte[] labels = twoClass(seeds.labels());
+    SeedLabels labels =
+        new SeedLabels(
+            features.width(), features.height(), features.depth(), twoClass(seeds.labels()));
     MaxFlowResult result;
     boolean dynamic = cut != null && lambda == builtLambda && s == builtSigma;
     if (dynamic) {
-      result = reseed(labels);
+      cut.changeSeeds(labels);
+      result = cut.resolve();
     } else {
       build(labels, lambda, s);
       result = cut.solve();
@@ -119,53 +117,11 @@ final class LiveCut {
         CutProblem.mask(result), result.flowValue(), certified, result.solveNanos(), dynamic);
   }
 
-  private void build(byte[] labels, double lambda, double s) {
-    SeedLabels seeds =
-        new SeedLabels(features.width(), features.height(), features.depth(), labels.clone());
+  private void build(SeedLabels seeds, double lambda, double s) {
     EnergyParameters p = new EnergyParameters(lambda, s, neighborhood, features.voxelSize());
     cut = CutProblem.build(features, foregroundCost, backgroundCost, seeds, p, true);
     builtLambda = lambda;
     builtSigma = s;
-    applied = labels;
-    source = new int[n];
-    sink = new int[n];
-    for (int i = 0; i < n; i++) {
-      setTarget(i, labels[i]);
-    }
-  }
-
-  private MaxFlowResult reseed(byte[] labels) {
-    int[] ds = new int[n];
-    int[] dt = new int[n];
-    for (int i = 0; i < n; i++) {
-      if (labels[i] != applied[i]) {
-        int s0 = source[i];
-        int t0 = sink[i];
-        setTarget(i, labels[i]);
-        ds[i] = source[i] - s0;
-        dt[i] = sink[i] - t0;
-      }
-    }
-    applied = labels;
-    cut.solver().addTerminalCapacities(ds, dt);
-    return cut.resolve();
-  }
-
-  /**
-   * The terminal capacities of voxel {@code i} with seed label {@code label}, as CutProblem sets.
-   */
-  private void setTarget(int i, byte label) {
-    int hard = cut.hardCapacity();
-    if (label == SeedLabels.FOREGROUND) {
-      source[i] = hard;
-      sink[i] = 0;
-    } else if (label == SeedLabels.BACKGROUND) {
-      source[i] = 0;
-      sink[i] = hard;
-    } else {
-      source[i] = CapacityScale.toCapacity(backgroundCost[i]);
-      sink[i] = CapacityScale.toCapacity(foregroundCost[i]);
-    }
   }
 
   private static byte[] twoClass(byte[] labels) {
