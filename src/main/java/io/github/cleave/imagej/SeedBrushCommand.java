@@ -49,7 +49,19 @@ public final class SeedBrushCommand implements PlugIn {
             tool.run(""); // adds the tool to the toolbar and selects it
             java.awt.Window w = imp.getWindow();
             if (w != null) {
-              panel[0].setLocation(w.getX() + w.getWidth() + 8, w.getY());
+              // beside the image; below it when the screen has no room beside it; on the screen
+              java.awt.Rectangle screen = w.getGraphicsConfiguration().getBounds();
+              int x = w.getX() + w.getWidth() + 8;
+              int y = w.getY();
+              int right = screen.x + screen.width - panel[0].getWidth();
+              if (x > right) {
+                x = w.getX();
+                y =
+                    Math.min(
+                        w.getY() + w.getHeight() + 8,
+                        screen.y + screen.height - panel[0].getHeight());
+              }
+              panel[0].setLocation(Math.max(screen.x, Math.min(x, right)), Math.max(screen.y, y));
             }
             session[0].setPanel(panel[0]);
             panel[0].setVisible(true);
