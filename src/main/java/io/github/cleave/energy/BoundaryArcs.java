@@ -23,8 +23,11 @@ import java.util.Arrays;
  *       weights).
  * </ul>
  *
- * <p>O(n · K / 2) table look-ups for n voxels and K neighbours, plus the tables (a few thousand
- * exponentials, shared by directions of equal weight); three int arrays of n entries.
+ * <p>The solver is filled row by row, every arc of a voxel together ({@code
+ * GridMaxFlow.setRowNeighborCapacities}), so its arrays are written once, in order; each pair is
+ * therefore evaluated from both ends, by the same table. O(n · K) table look-ups for n voxels and K
+ * neighbours, plus the tables (a few thousand exponentials, shared by directions of equal weight);
+ * one row of K · width ints, and an int copy of a whole-number grey image.
  */
 final class BoundaryArcs {
   /** Whole numbers up to this magnitude are exact in float, int and double alike. */
@@ -46,42 +49,22 @@ final class BoundaryArcs {
    * from costing more than they save; tests vary it to reach every path).
    */
   static int set(GridMaxFlow solver, Raster features, EnergyParameters parameters, int budget) {
-    Neighborhood nb = parameters.neighborhood();
-    double sigma = parameters.contrastScale();
-    double inverseTwoSigmaSquared = 1.0 / (2 * sigma * sigma);
-    int n = features.size();
-    float[][] channels = new float[features.channelCount()][];
-    for (int c = 0; c < channels.length; c++) {
-      channels[c] = features.channel(c);
-    }
+    int directions = parameters.neighborhood().size();
     PairCapacities pairs = new PairCapacities(features, parameters, budget);
-    int[] caps = new int[n];
-    int[] sum = new int[n];
-    for (int k = 0; k < nb.size(); k += 2) {
-      Object table = pairs.tables[k];
-      Rows rows = new Rows(features, nb, k);
-      int step = rows.step;
-      for (int r = 0; r < rows.count; r++) {
-        int from = rows.from(r);
-        int to = from + rows.length;
-        if (table instanceof int[] differences) {
-          greyRow(pairs.grey, differences, from, to, step, caps);
-        } else if (table instanceof ExponentialSteps steps) {
-          stepsRow(channels, steps, inverseTwoSigmaSquared, from, to, step, caps);
-        } else {
-          directRow(channels, pairs.scales[k], inverseTwoSigmaSquared, from, to, step, caps);
-        }
-        for (int p = from; p < to; p++) {
-          int cap = caps[p];
-          sum[p] += cap;
-          sum[p + step] += cap;
-        }
-      }
-      solver.setSymmetricNeighborCapacities(k, caps);
-    }
+    int[] row = new int[features.width() * directions];
     int largest = 0;
-    for (int s : sum) {
-      largest = Math.max(largest, s);
+    for (int z = 0; z < features.depth(); z++) {
+      for (int y = 0; y < features.height(); y++) {
+        pairs.fillRow(y, z, row);
+        for (int a = 0; a < row.length; a += directions) {
+          int sum = 0;
+          for (int k = 0; k < directions; k++) {
+            sum += row[a + k];
+          }
+          largest = Math.max(largest, sum);
+        }
+        solver.setRowNeighborCapacities(y, z, row);
+      }
     }
     return largest;
   }
@@ -99,6 +82,10 @@ final class BoundaryArcs {
     private final double[] scales; // per direction, for the formula
     private final int[] steps; // per direction: index offset of the neighbour
     private final double inverseTwoSigmaSquared;
+    private final Neighborhood nb;
+    private final int width;
+    private final int height;
+    private final int depth;
 
     PairCapacities(Raster features, EnergyParameters parameters) {
       this(features, parameters, features.size() / 4);
@@ -106,7 +93,10 @@ final class BoundaryArcs {
 
     /** With tables allowed to cost at most {@code budget} exponentials per direction. */
     PairCapacities(Raster features, EnergyParameters parameters, int budget) {
-      Neighborhood nb = parameters.neighborhood();
+      nb = parameters.neighborhood();
+      width = features.width();
+      height = features.height();
+      depth = features.depth();
       double sigma = parameters.contrastScale();
       inverseTwoSigmaSquared = 1.0 / (2 * sigma * sigma);
       channels = new float[features.channelCount()][];
@@ -146,10 +136,55 @@ final class BoundaryArcs {
         int d = Math.abs(grey[p] - grey[q]);
         return d < differences.length ? differences[d] : 0;
       }
-      double exponent = squaredDifference(channels, p, q) * inverseTwoSigmaSquared;
+      double exponent = ContrastScale.squaredDifference(channels, p, q) * inverseTwoSigmaSquared;
       return table instanceof ExponentialSteps s
           ? s.capacity(exponent)
           : capacity(scales[k], exponent);
+    }
+
+    /**
+     * The capacities of every arc leaving row (y, z), interleaved: {@code row[x * K + k]} for the
+     * arc from x in direction k, 0 for arcs leaving the grid. Each pair is evaluated once from
+     * either end, by the same table, so both arcs of a pair get the same value.
+     */
+    void fillRow(int y, int z, int[] row) {
+      int directions = nb.size();
+      int first = width * (y + height * z);
+      for (int k = 0; k < directions; k++) {
+        int qy = y + nb.dy(k);
+        int qz = z + nb.dz(k);
+        int x0 = Math.max(0, -nb.dx(k));
+        int x1 = Math.min(width, width - nb.dx(k));
+        if (qy < 0 || qy >= height || qz < 0 || qz >= depth) {
+          x1 = x0; // the whole row's arcs in this direction leave the grid
+        }
+        for (int x = 0; x < x0; x++) {
+          row[x * directions + k] = 0;
+        }
+        for (int x = Math.max(x0, x1); x < width; x++) {
+          row[x * directions + k] = 0;
+        }
+        int step = steps[k];
+        Object table = tables[k];
+        if (table instanceof int[] differences) {
+          int length = differences.length;
+          for (int x = x0, p = first + x0; x < x1; x++, p++) {
+            int diff = Math.abs(grey[p] - grey[p + step]);
+            row[x * directions + k] = diff < length ? differences[diff] : 0;
+          }
+        } else if (table instanceof ExponentialSteps s) {
+          for (int x = x0, p = first + x0; x < x1; x++, p++) {
+            double sq = ContrastScale.squaredDifference(channels, p, p + step);
+            row[x * directions + k] = s.capacity(sq * inverseTwoSigmaSquared);
+          }
+        } else {
+          double scale = scales[k];
+          for (int x = x0, p = first + x0; x < x1; x++, p++) {
+            double sq = ContrastScale.squaredDifference(channels, p, p + step);
+            row[x * directions + k] = capacity(scale, sq * inverseTwoSigmaSquared);
+          }
+        }
+      }
     }
   }
 
@@ -217,14 +252,6 @@ final class BoundaryArcs {
     return (int) max - (int) min;
   }
 
-  private static void greyRow(int[] v, int[] table, int from, int to, int step, int[] out) {
-    int length = table.length;
-    for (int p = from; p < to; p++) {
-      int d = Math.abs(v[p] - v[p + step]);
-      out[p] = d < length ? table[d] : 0;
-    }
-  }
-
   /** Whole-number floats as ints (see {@link #integerRange}). */
   private static int[] toInts(float[] values) {
     int[] out = new int[values.length];
@@ -232,85 +259,5 @@ final class BoundaryArcs {
       out[p] = (int) values[p];
     }
     return out;
-  }
-
-  private static void stepsRow(
-      float[][] channels,
-      ExponentialSteps steps,
-      double inverseTwoSigmaSquared,
-      int from,
-      int to,
-      int step,
-      int[] out) {
-    if (channels.length == 1) {
-      float[] v = channels[0];
-      for (int p = from; p < to; p++) {
-        double diff = (double) v[p] - v[p + step];
-        out[p] = steps.capacity(diff * diff * inverseTwoSigmaSquared);
-      }
-    } else {
-      for (int p = from; p < to; p++) {
-        out[p] = steps.capacity(squaredDifference(channels, p, p + step) * inverseTwoSigmaSquared);
-      }
-    }
-  }
-
-  private static void directRow(
-      float[][] channels,
-      double scale,
-      double inverseTwoSigmaSquared,
-      int from,
-      int to,
-      int step,
-      int[] out) {
-    for (int p = from; p < to; p++) {
-      out[p] = capacity(scale, squaredDifference(channels, p, p + step) * inverseTwoSigmaSquared);
-    }
-  }
-
-  /** {@code ‖I_p − I_q‖²}, summed in channel order as {@link ContrastScale} does. */
-  private static double squaredDifference(float[][] channels, int p, int q) {
-    double sq = 0;
-    for (float[] v : channels) {
-      double diff = (double) v[p] - v[q];
-      sq += diff * diff;
-    }
-    return sq;
-  }
-
-  /** The rows of voxels whose neighbour in direction k lies inside the grid. */
-  private static final class Rows {
-    final int step;
-    final int count;
-    final int length;
-    private final int x0;
-    private final int y0;
-    private final int z0;
-    private final int rowsPerPlane;
-    private final int width;
-    private final int height;
-
-    Rows(Raster features, Neighborhood nb, int k) {
-      int dx = nb.dx(k);
-      int dy = nb.dy(k);
-      int dz = nb.dz(k);
-      width = features.width();
-      height = features.height();
-      int d = features.depth();
-      step = dx + width * (dy + height * dz);
-      x0 = Math.max(0, -dx);
-      y0 = Math.max(0, -dy);
-      z0 = Math.max(0, -dz);
-      length = Math.max(0, Math.min(width, width - dx) - x0);
-      rowsPerPlane = Math.max(0, Math.min(height, height - dy) - y0);
-      count = rowsPerPlane * Math.max(0, Math.min(d, d - dz) - z0);
-    }
-
-    /** The first voxel of row r. */
-    int from(int r) {
-      int y = y0 + r % rowsPerPlane;
-      int z = z0 + r / rowsPerPlane;
-      return x0 + width * (y + height * z);
-    }
   }
 }

@@ -1,6 +1,7 @@
 package io.github.cleave.flow;
 
 import java.util.BitSet;
+import java.util.Locale;
 
 /**
  * Maximum flow and minimum cut on a 2D or 3D pixel grid by the augmenting-path method of Boykov and
@@ -655,29 +656,96 @@ public final class GridMaxFlow implements MaxFlowSolver {
     int node = 0;
     for (int z = 0; z < g.depth; z++) {
       for (int y = 0; y < g.height; y++) {
-        int p = g.padded(0, y, z);
-        if (capacity != null) {
-          System.arraycopy(caps, node * directions, capacity, p * directions, g.width * directions);
-        } else {
-          search.residual.copyFrom(caps, node * directions, p * directions, g.width * directions);
-        }
-        // Arcs that leave the grid stay closed; only nodes within reach of the border have any.
-        boolean borderRow =
-            y < g.reach || y >= g.height - g.reach || z < g.reachZ || z >= g.depth - g.reachZ;
-        for (int x = 0; x < g.width; x++) {
-          if (!borderRow && x == g.reach && g.width - g.reach > x) {
-            x = g.width - g.reach; // skip the interior of the row
-          }
-          for (int k = 0; k < directions; k++) {
-            if (!inside(x + nb.dx(k), y + nb.dy(k), z + nb.dz(k))) {
-              store((p + x) * directions + k, 0);
-            }
-          }
-        }
+        storeRow(caps, node * directions, y, z);
         node += g.width;
       }
     }
     generation++;
+  }
+
+  /**
+   * Sets every neighbour arc leaving the nodes of one row, those at {@code (x, y, z)} for x from 0
+   * to width − 1: {@code caps[x * K + k]} is the capacity of the arc from x in direction {@code k}.
+   * Entries of arcs leaving the grid are ignored. A graph is built row by row in one sequential
+   * pass over the solver's arrays. Only before the first solve.
+   *
+   * @throws IllegalArgumentException if the row is outside the grid, {@code caps} is shorter than
+   *     {@code width * K}, or a capacity is negative or above {@code Integer.MAX_VALUE / 2}
+   */
+  public void setRowNeighborCapacities(int y, int z, int[] caps) {
+    GridLayout g = layout;
+    int length = g.width * directions;
+    if (y < 0 || y >= g.height || z < 0 || z >= g.depth || caps.length < length) {
+      throw new IllegalArgumentException(
+          String.format(
+              Locale.ROOT,
+              "row (y %d, z %d) of a %d x %d x %d grid with %d values (need %d)",
+              y,
+              z,
+              g.width,
+              g.height,
+              g.depth,
+              caps.length,
+              length));
+    }
+    checkNotSolved();
+    int bits = 0; // the union of all bits: negative if any value is, else >= every value
+    for (int i = 0; i < length; i++) {
+      bits |= caps[i];
+    }
+    if (bits < 0 || bits > Integer.MAX_VALUE / 2) {
+      for (int i = 0; i < length; i++) {
+        if (caps[i] < 0 || caps[i] > Integer.MAX_VALUE / 2) {
+          throw new IllegalArgumentException(
+              String.format(
+                  Locale.ROOT,
+                  "capacity %d of arc (x %d, y %d, z %d, direction %d) must be between 0 and %d",
+                  caps[i],
+                  i / directions,
+                  y,
+                  z,
+                  i % directions,
+                  Integer.MAX_VALUE / 2));
+        }
+      }
+    }
+    if (capacity == null && bits > Residuals.NARROW_CAPACITY) {
+      int largest = 0;
+      for (int i = 0; i < length; i++) {
+        largest = Math.max(largest, caps[i]);
+      }
+      fitResiduals(largest);
+    }
+    storeRow(caps, 0, y, z);
+    generation++;
+  }
+
+  /**
+   * Copies the interleaved capacities of row (y, z), starting at {@code caps[from]}, into the
+   * network, then closes the arcs of the row that leave the grid.
+   */
+  private void storeRow(int[] caps, int from, int y, int z) {
+    GridLayout g = layout;
+    Neighborhood nb = g.neighborhood;
+    int p = g.padded(0, y, z);
+    if (capacity != null) {
+      System.arraycopy(caps, from, capacity, p * directions, g.width * directions);
+    } else {
+      search.residual.copyFrom(caps, from, p * directions, g.width * directions);
+    }
+    // Arcs that leave the grid stay closed; only nodes within reach of the border have any.
+    boolean borderRow =
+        y < g.reach || y >= g.height - g.reach || z < g.reachZ || z >= g.depth - g.reachZ;
+    for (int x = 0; x < g.width; x++) {
+      if (!borderRow && x == g.reach && g.width - g.reach > x) {
+        x = g.width - g.reach; // skip the interior of the row
+      }
+      for (int k = 0; k < directions; k++) {
+        if (!inside(x + nb.dx(k), y + nb.dy(k), z + nb.dz(k))) {
+          store((p + x) * directions + k, 0);
+        }
+      }
+    }
   }
 
   /**

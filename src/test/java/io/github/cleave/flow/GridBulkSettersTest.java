@@ -80,6 +80,40 @@ class GridBulkSettersTest {
   }
 
   @Test
+  void rowSetterEqualsArcByArc() {
+    SplittableRandom random = new SplittableRandom(11L);
+    for (int trial = 0; trial < 120; trial++) {
+      Neighborhood nb = ALL[trial % ALL.length];
+      int w = 1 + random.nextInt(12);
+      int h = 1 + random.nextInt(12);
+      int d = nb.isThreeDimensional() ? 1 + random.nextInt(5) : 1;
+      int n = w * h * d;
+      GridMaxFlow bulk = new GridMaxFlow(w, h, d, nb, random.nextBoolean()); // both storages
+      GridMaxFlow single = new GridMaxFlow(w, h, d, nb, true);
+      boolean wide = trial % 5 == 0; // values beyond the 16-bit residuals in some rows
+      int[] row = new int[w * nb.size()];
+      for (int z = 0; z < d; z++) {
+        for (int y = 0; y < h; y++) {
+          for (int x = 0; x < w; x++) {
+            int p = x + w * (y + h * z);
+            for (int k = 0; k < nb.size(); k++) {
+              int c =
+                  wide && random.nextInt(7) == 0 ? 40000 + random.nextInt(9) : random.nextInt(40);
+              row[x * nb.size() + k] = c;
+              if (single.neighbor(p, k) >= 0) {
+                single.setNeighborCapacity(p, k, c);
+              }
+            }
+          }
+          bulk.setRowNeighborCapacities(y, z, row);
+        }
+      }
+      terminals(random, n, bulk, single);
+      assertSameNetworkAndCut(bulk, single, n, nb);
+    }
+  }
+
+  @Test
   void bulkTerminalChangesAfterASolveEqualChangesOneByOne() {
     SplittableRandom random = new SplittableRandom(99L);
     for (int trial = 0; trial < 120; trial++) {
@@ -129,6 +163,14 @@ class GridBulkSettersTest {
         .hasMessageContaining("must be between 0 and");
     int[] negative = new int[Neighborhood.N4.size()];
     negative[1] = -1;
+    assertThatThrownBy(() -> solver.setRowNeighborCapacities(3, 0, new int[3 * 4]))
+        .hasMessageContaining("row (y 3, z 0)");
+    assertThatThrownBy(() -> solver.setRowNeighborCapacities(0, 0, new int[3 * 4 - 1]))
+        .hasMessageContaining("need 12");
+    int[] huge = new int[9 * 4];
+    huge[6] = Integer.MAX_VALUE / 2 + 1;
+    assertThatThrownBy(() -> solver.setRowNeighborCapacities(1, 0, huge))
+        .hasMessageContaining("direction 2");
     assertThatThrownBy(() -> solver.setNeighborCapacitiesOf(new int[] {4}, 1, negative))
         .isInstanceOf(IllegalArgumentException.class)
         .hasMessageContaining("must be between 0 and");
