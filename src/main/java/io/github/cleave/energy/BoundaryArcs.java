@@ -103,11 +103,12 @@ final class BoundaryArcs {
       for (int c = 0; c < channels.length; c++) {
         channels[c] = features.channel(c);
       }
-      int greyRange = channels.length == 1 ? integerRange(channels[0]) : -1;
+      int[] ints = channels.length == 1 ? wholeNumbers(channels[0]) : null;
+      int greyRange = ints == null ? -1 : range(ints);
       tables = new Object[nb.size()];
       scales = new double[nb.size()];
       steps = new int[nb.size()];
-      int[] ints = null;
+      boolean byDifference = false;
       for (int k = 0; k < nb.size(); k += 2) {
         double scale =
             parameters.boundaryPenalty()
@@ -117,16 +118,14 @@ final class BoundaryArcs {
             k > 0 && scale == scales[k - 2]
                 ? tables[k - 2]
                 : table(scale, inverseTwoSigmaSquared, greyRange, budget);
-        if (table instanceof int[] && ints == null) {
-          ints = toInts(channels[0]);
-        }
+        byDifference |= table instanceof int[];
         for (int j = k; j <= k + 1; j++) {
           tables[j] = table;
           scales[j] = scale;
           steps[j] = nb.dx(j) + features.width() * (nb.dy(j) + features.height() * nb.dz(j));
         }
       }
-      grey = ints;
+      grey = byDifference ? ints : null;
     }
 
     int between(int p, int k) {
@@ -229,35 +228,30 @@ final class BoundaryArcs {
   }
 
   /**
-   * {@code max − min} of {@code values} if every value is a whole number of magnitude at most 2²⁴,
-   * else -1.
+   * {@code values} as ints if every value is a whole number of magnitude at most 2²⁴ (exact in
+   * float, int and double alike), else null.
    */
-  static int integerRange(float[] values) {
-    if (values.length == 0) {
-      return 0;
-    }
-    float min = values[0];
-    float max = values[0];
-    for (float v : values) {
-      if (!(Math.abs(v) <= EXACT_INTEGER) || v != (float) (int) v) {
-        return -1; // NaN, infinite, too large, or a fraction
-      }
-      if (v < min) {
-        min = v;
-      }
-      if (v > max) {
-        max = v;
-      }
-    }
-    return (int) max - (int) min;
-  }
-
-  /** Whole-number floats as ints (see {@link #integerRange}). */
-  private static int[] toInts(float[] values) {
+  static int[] wholeNumbers(float[] values) {
     int[] out = new int[values.length];
     for (int p = 0; p < values.length; p++) {
-      out[p] = (int) values[p];
+      float v = values[p];
+      int i = (int) v;
+      if (v != i || !(Math.abs(v) <= EXACT_INTEGER)) {
+        return null; // NaN, infinite, too large, or a fraction
+      }
+      out[p] = i;
     }
     return out;
+  }
+
+  /** {@code max − min} of {@code values} (0 when empty). */
+  private static int range(int[] values) {
+    int min = values.length == 0 ? 0 : values[0];
+    int max = min;
+    for (int v : values) {
+      min = Math.min(min, v);
+      max = Math.max(max, v);
+    }
+    return max - min;
   }
 }

@@ -18,12 +18,22 @@ public final class CapacityScale {
   /** Capacity units per nat. */
   public static final int UNITS_PER_NAT = 256;
 
+  private static final double ROUNDING_SHIFT = 0x1p52;
+
   private CapacityScale() {}
 
   /** The capacity of an energy of {@code nats} (≥ 0), rounded; saturates at Integer.MAX_VALUE. */
   public static int toCapacity(double nats) {
-    double units = Math.rint(nats * UNITS_PER_NAT);
-    return units >= Integer.MAX_VALUE ? Integer.MAX_VALUE : (int) Math.max(0, units);
+    double units = nats * UNITS_PER_NAT;
+    if (!(units > 0)) {
+      return 0; // negative, zero or NaN
+    }
+    if (units >= Integer.MAX_VALUE) {
+      return Integer.MAX_VALUE;
+    }
+    // Math.rint for 0 < units < 2^31: above 2^52 the spacing of doubles is 1, so the sum is
+    // rounded to the nearest whole number, ties to even, exactly as rint rounds.
+    return (int) ((units + ROUNDING_SHIFT) - ROUNDING_SHIFT);
   }
 
   /** The energy in nats of a capacity sum. */

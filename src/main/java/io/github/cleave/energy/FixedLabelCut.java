@@ -22,9 +22,9 @@ import java.util.Locale;
  * CutProblem} with the fixed voxels as hard seeds, less a constant (the boundary between fixed
  * voxels), and the minimal source set is the same: {@link #mask} returns the same mask.
  *
- * <p>Cost: O(n) to list the free voxels and set terminals, O(f · K) for f free voxels and K
- * neighbours to build, and a solve whose search stays among the free voxels. Memory: the grid
- * solver (sized for the whole grid) plus {@code f · K} ints while building. Not thread-safe.
+ * <p>Cost: O(n) to list the free voxels, O(f · K) for f free voxels and K neighbours to build, and
+ * a solve whose search stays among the free voxels. Memory: the grid solver (sized for the whole
+ * grid) plus {@code f · K} ints while building. Not thread-safe.
  */
 public final class FixedLabelCut {
   private final GridMaxFlow solver;
@@ -77,8 +77,8 @@ public final class FixedLabelCut {
     }
     int[] nodes = new int[free];
     int[] caps = new int[free * directions];
-    int[] source = new int[n];
-    int[] sink = new int[n];
+    int[] source = new int[free];
+    int[] sink = new int[free];
     BoundaryArcs.PairCapacities pairs = new BoundaryArcs.PairCapacities(features, parameters);
     int i = 0;
     for (int p = 0; p < n; p++) {
@@ -107,13 +107,13 @@ public final class FixedLabelCut {
           caps[i * directions + k] = cap;
         }
       }
-      source[p] = (int) Math.min(Integer.MAX_VALUE, toSource);
-      sink[p] = (int) Math.min(Integer.MAX_VALUE, toSink);
+      source[i] = (int) Math.min(Integer.MAX_VALUE, toSource);
+      sink[i] = (int) Math.min(Integer.MAX_VALUE, toSink);
       nodes[i++] = p;
     }
     GridMaxFlow solver = new GridMaxFlow(w, h, d, nb);
     solver.setNeighborCapacitiesOf(nodes, free, caps);
-    solver.setTerminalCapacities(source, sink);
+    solver.setTerminalCapacitiesOf(nodes, free, source, sink);
     return new FixedLabelCut(solver, fixed);
   }
 

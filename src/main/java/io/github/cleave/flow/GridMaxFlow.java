@@ -434,6 +434,47 @@ public final class GridMaxFlow implements MaxFlowSolver {
   }
 
   /**
+   * Sets the terminal capacities of the listed nodes: {@code sourceCaps[i]} and {@code sinkCaps[i]}
+   * for {@code nodes[i]}, {@code i < count}; other nodes keep theirs (zero on a new solver), so a
+   * graph over part of the grid is built in time proportional to that part. Replaces earlier
+   * terminal capacities when capacities are retained, adds to them otherwise. Only before the first
+   * solve.
+   *
+   * @throws IllegalArgumentException if a node is outside the grid, an array is shorter than {@code
+   *     count}, or a capacity is negative
+   */
+  public void setTerminalCapacitiesOf(int[] nodes, int count, int[] sourceCaps, int[] sinkCaps) {
+    if (count < 0 || count > nodes.length || count > sourceCaps.length || count > sinkCaps.length) {
+      throw new IllegalArgumentException(
+          String.format(
+              Locale.ROOT,
+              "terminal capacities of %d nodes: %d nodes, %d source and %d sink values given",
+              count,
+              nodes.length,
+              sourceCaps.length,
+              sinkCaps.length));
+    }
+    checkNotSolved();
+    for (int i = 0; i < count; i++) {
+      int node = nodes[i];
+      layout.checkNode(node);
+      int cs = sourceCaps[i];
+      int ct = sinkCaps[i];
+      if ((cs | ct) < 0) {
+        checkCapacity(Math.min(cs, ct), "terminal capacity of node " + node);
+      }
+      int p = layout.padded(node);
+      if (capacity != null) {
+        sourceCapacity[p] = cs;
+        sinkCapacity[p] = ct;
+      } else {
+        search.changeTerminal(p, cs, ct);
+      }
+    }
+    generation++;
+  }
+
+  /**
    * Sets the capacity of the arc in direction {@code k} of every node at once: {@code caps[node]}
    * in public node order. Entries of nodes whose neighbour in direction {@code k} lies outside the
    * grid are ignored. Only before the first solve.

@@ -28,18 +28,22 @@ final class BoundaryBand {
   static boolean[] boundary(byte[] mask, int w, int h, int d, boolean planes) {
     boolean[] out = new boolean[mask.length];
     int plane = w * h;
-    for (int p = 0; p < mask.length; p++) {
-      boolean fg = mask[p] != 0;
-      int x = p % w;
-      int y = p / w % h;
-      int z = p / plane;
-      out[p] =
-          x > 0 && (mask[p - 1] != 0) != fg
-              || x < w - 1 && (mask[p + 1] != 0) != fg
-              || y > 0 && (mask[p - w] != 0) != fg
-              || y < h - 1 && (mask[p + w] != 0) != fg
-              || !planes && z > 0 && (mask[p - plane] != 0) != fg
-              || !planes && z < d - 1 && (mask[p + plane] != 0) != fg;
+    for (int z = 0; z < d; z++) {
+      boolean below = !planes && z > 0;
+      boolean above = !planes && z < d - 1;
+      for (int y = 0; y < h; y++) {
+        int row = w * (y + h * z);
+        for (int x = 0, p = row; x < w; x++, p++) {
+          boolean fg = mask[p] != 0;
+          out[p] =
+              x > 0 && (mask[p - 1] != 0) != fg
+                  || x < w - 1 && (mask[p + 1] != 0) != fg
+                  || y > 0 && (mask[p - w] != 0) != fg
+                  || y < h - 1 && (mask[p + w] != 0) != fg
+                  || below && (mask[p - plane] != 0) != fg
+                  || above && (mask[p + plane] != 0) != fg;
+        }
+      }
     }
     return out;
   }

@@ -106,8 +106,8 @@ final class EdgeRefinement {
     boolean[] boundary = BoundaryBand.boundary(mask, w, h, d, planes);
     boolean[] band = dilate(boundary, w, h, d, BAND, zReach(BAND, features, planes));
     boolean[] outer = dilate(boundary, w, h, d, BAND + RING, zReach(BAND + RING, features, planes));
-    float[] inside = new float[n];
-    float[] ring = new float[n];
+    byte[] inside = new byte[n];
+    byte[] ring = new byte[n];
     for (int p = 0; p < n; p++) {
       if (!band[p]) {
         if (mask[p] != 0) {
@@ -184,8 +184,8 @@ final class EdgeRefinement {
   private record Levels(float[][] object, float[][] background, double[] variance) {
     static Levels measure(
         Raster features,
-        float[] inside,
-        float[] ring,
+        byte[] inside,
+        byte[] ring,
         int[] objectSource,
         int[] backgroundSource,
         int windowZ) {
@@ -204,7 +204,7 @@ final class EdgeRefinement {
         double ss = 0;
         long m = 0;
         for (int p = 0; p < v.length; p += VARIANCE_STRIDE) {
-          float[] members = inside[p] != 0 ? inside : ring[p] != 0 ? ring : null;
+          byte[] members = inside[p] != 0 ? inside : ring[p] != 0 ? ring : null;
           if (members != null) {
             double e = v[p] - windowMean(features, v, members, p, windowZ);
             ss += e * e;
@@ -221,7 +221,7 @@ final class EdgeRefinement {
      * window of ±{@link #WINDOW} widths (±{@code windowZ} planes), stored in {@code out}.
      */
     private static void windowMeans(
-        Raster features, float[] v, float[] members, int[] sources, int windowZ, float[] out) {
+        Raster features, float[] v, byte[] members, int[] sources, int windowZ, float[] out) {
       for (int s : sources) {
         out[s] = (float) windowMean(features, v, members, s, windowZ);
       }
@@ -229,7 +229,7 @@ final class EdgeRefinement {
 
     /** The mean of {@code v} over the members in the window around member {@code s}. */
     private static double windowMean(
-        Raster features, float[] v, float[] members, int s, int windowZ) {
+        Raster features, float[] v, byte[] members, int s, int windowZ) {
       int w = features.width();
       int h = features.height();
       int d = features.depth();
@@ -302,35 +302,49 @@ final class EdgeRefinement {
 
   /**
    * For every voxel of {@code band}, the nearest voxel with a nonzero {@code source} value reached
-   * through the band (breadth-first, axial steps, ties to the one reached first); -1 elsewhere.
+   * through the band (breadth-first, axial steps, ties to the one reached first); -1 elsewhere. The
+   * search starts from the source voxels next to the band, in raster order (the others could only
+   * reach the band through these), so it visits the band and its rim, not the whole image.
    */
-  private static int[] nearest(
-      float[] source, boolean[] band, int w, int h, int d, boolean planes) {
+  private static int[] nearest(byte[] source, boolean[] band, int w, int h, int d, boolean planes) {
     int n = source.length;
     int plane = w * h;
     int[] from = new int[n];
     Arrays.fill(from, -1);
     int[] queue = new int[n];
     int tail = 0;
-    for (int p = 0; p < n; p++) {
-      if (source[p] != 0) {
-        from[p] = p;
-        queue[tail++] = p;
+    for (int z = 0; z < d; z++) {
+      boolean below = !planes && z > 0;
+      boolean above = !planes && z < d - 1;
+      for (int y = 0; y < h; y++) {
+        int row = w * (y + h * z);
+        for (int x = 0, p = row; x < w; x++, p++) {
+          if (source[p] != 0
+              && (x > 0 && band[p - 1]
+                  || x < w - 1 && band[p + 1]
+                  || y > 0 && band[p - w]
+                  || y < h - 1 && band[p + w]
+                  || below && band[p - plane]
+                  || above && band[p + plane])) {
+            from[p] = p;
+            queue[tail++] = p;
+          }
+        }
       }
     }
+    int starts = tail;
+    int[] around = new int[6];
     for (int head = 0; head < tail; head++) {
       int p = queue[head];
       int x = p % w;
       int y = p / w % h;
       int z = p / plane;
-      int[] around = {
-        x > 0 ? p - 1 : -1,
-        x < w - 1 ? p + 1 : -1,
-        y > 0 ? p - w : -1,
-        y < h - 1 ? p + w : -1,
-        !planes && z > 0 ? p - plane : -1,
-        !planes && z < d - 1 ? p + plane : -1
-      };
+      around[0] = x > 0 ? p - 1 : -1;
+      around[1] = x < w - 1 ? p + 1 : -1;
+      around[2] = y > 0 ? p - w : -1;
+      around[3] = y < h - 1 ? p + w : -1;
+      around[4] = !planes && z > 0 ? p - plane : -1;
+      around[5] = !planes && z < d - 1 ? p + plane : -1;
       for (int q : around) {
         if (q >= 0 && from[q] < 0 && band[q]) {
           from[q] = from[p];
@@ -338,10 +352,8 @@ final class EdgeRefinement {
         }
       }
     }
-    for (int p = 0; p < n; p++) {
-      if (!band[p]) {
-        from[p] = -1;
-      }
+    for (int i = 0; i < starts; i++) {
+      from[queue[i]] = -1; // sources lie outside the band
     }
     return from;
   }

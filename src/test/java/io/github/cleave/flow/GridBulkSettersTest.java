@@ -114,6 +114,43 @@ class GridBulkSettersTest {
   }
 
   @Test
+  void listedTerminalSetterEqualsNodeByNode() {
+    SplittableRandom random = new SplittableRandom(13L);
+    for (int trial = 0; trial < 120; trial++) {
+      Neighborhood nb = ALL[trial % ALL.length];
+      int w = 1 + random.nextInt(12);
+      int h = 1 + random.nextInt(12);
+      int d = nb.isThreeDimensional() ? 1 + random.nextInt(5) : 1;
+      int n = w * h * d;
+      GridMaxFlow bulk = new GridMaxFlow(w, h, d, nb, random.nextBoolean()); // both storages
+      GridMaxFlow single = new GridMaxFlow(w, h, d, nb, true);
+      int[] caps = new int[n];
+      for (int k = 0; k < nb.size(); k += 2) {
+        for (int p = 0; p < n; p++) {
+          caps[p] = random.nextInt(30);
+        }
+        bulk.setSymmetricNeighborCapacities(k, caps);
+        single.setSymmetricNeighborCapacities(k, caps);
+      }
+      int[] nodes = new int[n];
+      int[] source = new int[n];
+      int[] sink = new int[n];
+      int count = 0;
+      for (int p = 0; p < n; p++) {
+        if (random.nextInt(3) == 0) {
+          nodes[count] = p;
+          source[count] = random.nextInt(60);
+          sink[count] = random.nextInt(60);
+          single.setTerminalCapacities(p, source[count], sink[count]);
+          count++;
+        }
+      }
+      bulk.setTerminalCapacitiesOf(nodes, count, source, sink);
+      assertSameNetworkAndCut(bulk, single, n, nb);
+    }
+  }
+
+  @Test
   void bulkTerminalChangesAfterASolveEqualChangesOneByOne() {
     SplittableRandom random = new SplittableRandom(99L);
     for (int trial = 0; trial < 120; trial++) {
