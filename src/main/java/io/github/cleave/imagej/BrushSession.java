@@ -50,6 +50,9 @@ final class BrushSession implements ImageListener {
   /** The status line after Esc stopped a cut. */
   static final String STOPPED = "cut stopped (Esc)";
 
+  /** Said once, with the first contour: what the contour is and what the results are. */
+  static final String PREVIEW = "preview: plain cut; Create mask runs the full pipeline";
+
   final ImagePlus imp;
   final LoadedImage image;
   final SeedStrokes strokes;
@@ -75,6 +78,7 @@ final class BrushSession implements ImageListener {
   private int maskPlane = -1; // the plane of mask, or -1 for a volume
   private int shownPlane = -1;
   private Roi drawing; // the stroke being drawn
+  private boolean previewExplained; // the status line said once what the contour is
 
   BrushSession(ImagePlus imp, Consumer<String> status) {
     this.imp = imp;
@@ -268,12 +272,17 @@ final class BrushSession implements ImageListener {
           if (gen != latest.get()) {
             return; // stale
           }
+          String shown = line;
           if (newMask != null) {
             mask = newMask;
             maskPlane = plane;
+            if (!previewExplained) { // once per session, with the first contour
+              previewExplained = true;
+              shown = line + " · " + PREVIEW;
+            }
           }
           redraw();
-          status.accept(line);
+          status.accept(shown);
         });
   }
 

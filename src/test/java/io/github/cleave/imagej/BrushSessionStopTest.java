@@ -50,6 +50,8 @@ class BrushSessionStopTest {
 
     EventQueue.invokeAndWait(() -> session.request(false));
     BrushDriver.waitFor(() -> session.lastMask() != null, 60_000, "first cut");
+    // the first contour's status line says once what the contour is
+    BrushDriver.waitFor(() -> status.get().contains(BrushSession.PREVIEW), 60_000, "preview");
     byte[] first = session.lastMask();
 
     // stopped while solving, by the key listener: the contour of the first cut stays. A new
@@ -82,7 +84,10 @@ class BrushSessionStopTest {
     // the next request recomputes normally: the mask a session that was never stopped shows
     EventQueue.invokeAndWait(() -> session.request(false));
     BrushDriver.waitFor(() -> session.lastMask() != first, 60_000, "cut after the stops");
-    assertThat(status.get()).contains("flow value = cut value", "(checked)", "full solve");
+    BrushDriver.waitFor(() -> status.get().contains("flow value"), 60_000, "status line");
+    assertThat(status.get())
+        .contains("flow value = cut value", "(checked)", "full solve")
+        .doesNotContain(BrushSession.PREVIEW);
     byte[] afterStops = session.lastMask();
 
     ImagePlus other = IJ.openImage(IMAGE.toString());
