@@ -30,8 +30,9 @@ import javax.imageio.ImageIO;
  * paints one foreground stroke and, with Alt held, one background stroke with java.awt.Robot, waits
  * for the live cut, presses "Create mask", then clicks the boundary penalty slider's track and
  * waits for the new cut; finally paints a third stroke and presses Ctrl+Z on the image window
- * (ImageJ's Edit &gt; Undo, which the brush takes over). Writes what it saw to {@code OUT/result.properties} and screenshots to
- * {@code OUT}; exits 0 when the scenario ran (the test judges the values).
+ * (ImageJ's Edit &gt; Undo, which the brush takes over). Writes what it saw to {@code
+ * OUT/result.properties} and screenshots to {@code OUT}; exits 0 when the scenario ran (the test
+ * judges the values).
  */
 public final class BrushDriver {
   static final Path SAMPLES = Path.of("sample-images");

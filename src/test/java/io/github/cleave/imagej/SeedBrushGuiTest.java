@@ -21,8 +21,8 @@ import org.junit.jupiter.api.io.TempDir;
  * 0.9 of the sample's ground truth (sample-images/README.md: nuclei.truth.tif); moving the boundary
  * penalty slider up changes the cut to a shorter boundary (a larger λ never lengthens the minimum
  * cut's boundary term; pixel-edge count used as its proxy, common practice, no source); Ctrl+Z on
- * the image undoes the last stroke and its overlay. Screenshots
- * of the panel and the contour are left in {@code target/gui/}.
+ * the image undoes the last stroke and its overlay. Screenshots of the panel and the contour are
+ * left in {@code target/gui/}.
  */
 class SeedBrushGuiTest {
   @Test
