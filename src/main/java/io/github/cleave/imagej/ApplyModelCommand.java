@@ -79,7 +79,10 @@ public final class ApplyModelCommand implements PlugIn {
     LoadedImage image = ImageFiles.fromImagePlus(imp, imp.getTitle());
     IJ.showStatus("Cleave: applying " + file.getFileName() + " to " + imp.getTitle());
     Segmentation result;
-    try (EscapeWatch esc = EscapeWatch.interrupting(Thread.currentThread())) {
+    try (EscapeWatch esc = EscapeWatch.interrupting(Thread.currentThread());
+        WorkProgress progress = WorkProgress.start()) {
+      progress.phase(
+          "applying " + file.getFileName() + " (Esc stops)", 0, 0.95, image.raster().size());
       result = Segmenter.apply(model, image.raster(), seeds);
     } finally {
       Thread.interrupted();

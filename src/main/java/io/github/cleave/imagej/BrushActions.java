@@ -61,15 +61,18 @@ final class BrushActions {
     SegmentationSettings settings = session.settings().segmentation();
     background(
         () -> {
-          ResultImages images = images(seeds, settings);
-          switch (output) {
-            case MASK -> images.mask().show();
-            case LABELS -> images.labels().show();
-            case MEASURE -> images.table().show(ResultImages.TABLE);
-            case ROIS -> {
-              RoiManager rm = RoiManager.getRoiManager();
-              for (Roi roi : RoiExport.rois(last.objects())) {
-                rm.addRoi(roi);
+          try (WorkProgress progress = WorkProgress.start()) {
+            ResultImages images = images(seeds, settings, progress);
+            progress.phase("showing the results", 0.9, 0.95, seeds.size());
+            switch (output) {
+              case MASK -> images.mask().show();
+              case LABELS -> images.labels().show();
+              case MEASURE -> images.table().show(ResultImages.TABLE);
+              case ROIS -> {
+                RoiManager rm = RoiManager.getRoiManager();
+                for (Roi roi : RoiExport.rois(last.objects())) {
+                  rm.addRoi(roi);
+                }
               }
             }
           }
@@ -77,7 +80,13 @@ final class BrushActions {
         });
   }
 
-  private synchronized ResultImages images(SeedLabels seeds, SegmentationSettings settings) {
+  /**
+   * The result images of the present seeds and settings, segmenting again only if they changed.
+   * Only reads the session's image: its pixels, overlay, calibration and display range stay as they
+   * are.
+   */
+  synchronized ResultImages images(
+      SeedLabels seeds, SegmentationSettings settings, WorkProgress progress) {
     if (last == null
         || !settings.equals(lastSettings)
         || !java.util.Arrays.equals(seeds.labels(), lastSeeds.labels())) {
@@ -85,10 +94,12 @@ final class BrushActions {
         throw new BadInputException("paint at least one foreground and one background stroke");
       }
       status.accept("segmenting with the whole pipeline (Esc stops)");
+      progress.phase("segmenting with the whole pipeline (Esc stops)", 0, 0.8, seeds.size());
       last = Segmenter.segment(session.image.raster(), seeds, settings);
       lastSeeds = seeds;
       lastSettings = settings;
     }
+    progress.phase("making the result images", 0.8, 0.9, seeds.size());
     return ResultImages.of(
         session.imp,
         session.image.raster(),
@@ -179,7 +190,10 @@ final class BrushActions {
           if (!LiveCut.hasBothClasses(seeds)) {
             throw new BadInputException("paint at least one foreground and one background stroke");
           }
-          ModelFiles.write(file, Segmenter.learn(session.image.raster(), seeds, settings));
+          try (WorkProgress progress = WorkProgress.start()) {
+            progress.phase("learning the model (Esc stops)", 0, 0.9, seeds.size());
+            ModelFiles.write(file, Segmenter.learn(session.image.raster(), seeds, settings));
+          }
           status.accept("model saved to " + file + " (for Apply Model and Segment Folder)");
         });
   }

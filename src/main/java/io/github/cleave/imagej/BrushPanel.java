@@ -24,7 +24,8 @@ import java.util.Locale;
  * ImageJ). Top: what a stroke paints and the brush width; middle: the cut's settings, the boundary
  * penalty as a slider on a log scale from {@value #LAMBDA_MIN} to {@value #LAMBDA_MAX} with its
  * number (the contour follows while the slider moves); bottom: actions and a status line with the
- * flow value (= cut value) and the solve time. Event-thread only.
+ * flow value (= cut value) and the solve time. Esc pressed on the panel stops a running cut; Ctrl+Z
+ * (Cmd+Z) is Undo. Event-thread only.
  */
 final class BrushPanel extends Frame {
   private static final long serialVersionUID = 1L;
@@ -117,7 +118,7 @@ final class BrushPanel extends Frame {
     row(g, "Stacks", volume);
 
     Panel buttons = new Panel(new GridLayout(0, 3, 4, 4));
-    button(buttons, "Undo", this::undo);
+    button(buttons, "Undo", session::undo);
     button(buttons, "Clear", this::clear);
     button(buttons, "Help", HelpCommand::show);
     button(buttons, "Create mask", () -> actions.present(BrushActions.Output.MASK));
@@ -141,6 +142,7 @@ final class BrushPanel extends Frame {
             dispose();
           }
         });
+    session.stop.listenTo(this); // Esc stops a running cut, Ctrl+Z undoes
     pack();
   }
 
@@ -170,14 +172,6 @@ final class BrushPanel extends Frame {
   private void setLambda(double l) {
     lambdaSlider.setValue(sliderOf(l));
     lambdaField.setText(format(l));
-  }
-
-  private void undo() {
-    if (session.strokes.undo()) {
-      session.strokesChanged();
-    } else {
-      showStatus("nothing to undo");
-    }
   }
 
   private void clear() {

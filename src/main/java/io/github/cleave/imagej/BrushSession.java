@@ -4,9 +4,6 @@ import ij.ImageListener;
 import ij.ImagePlus;
 import ij.gui.Overlay;
 import ij.gui.Roi;
-import ij.plugin.filter.ThresholdToSelection;
-import ij.process.ByteProcessor;
-import ij.process.ImageProcessor;
 import io.github.cleave.flow.Neighborhood;
 import io.github.cleave.image.PixelKind;
 import io.github.cleave.image.Raster;
@@ -16,13 +13,12 @@ import io.github.cleave.io.LoadedImage;
 import io.github.cleave.model.LikelihoodModel;
 import io.github.cleave.model.ModelKind;
 import io.github.cleave.model.ModelLearner;
-import io.github.cleave.render.OverlayPicture;
 import io.github.cleave.segment.Illumination;
 import io.github.cleave.segment.SegmentationSettings;
-import java.awt.Color;
 import java.awt.EventQueue;
 import java.util.List;
 import java.util.Locale;
+import java.util.concurrent.CancellationException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.ScheduledExecutorService;
@@ -40,12 +36,22 @@ import java.util.function.Consumer;
  * longer the newest when its turn comes is skipped, and a result that is stale when it arrives is
  * not shown. About {@value #RELEARN_MS} ms after the last stroke the likelihoods are learned again
  * from all seeds (every plane counts) and the cut rebuilt.
+ *
+ * <p><b>Esc.</b> Esc pressed on the image window or the panel, or recorded by ImageJ while a cut
+ * runs ({@link LiveCutStop}), stops the running cut ({@link #stopCut}): the worker is interrupted,
+ * the engine returns early, the last contour stays and the status line says {@value #STOPPED}. The
+ * live cut marks its kept graph stale, so the next request cuts as if nothing had been stopped.
+ * Long work (re-learning, a full solve) moves ImageJ's progress bar ({@link WorkProgress}).
  */
 final class BrushSession implements ImageListener {
   /** Pause after a stroke before the likelihoods are learned again, in milliseconds. */
   static final int RELEARN_MS = 1000;
 
-  private static final Color CONTOUR = new Color(OverlayPicture.CONTOUR);
+  /** The status line after Esc stopped a cut. */
+  static final String STOPPED = "cut stopped (Esc)";
+
+  /** Said once, with the first contour: what the contour is and what the results are. */
+  static final String PREVIEW = "preview: plain cut; Create mask runs the full pipeline";
 
   final ImagePlus imp;
   final LoadedImage image;
@@ -57,6 +63,8 @@ final class BrushSession implements ImageListener {
   private final ScheduledExecutorService timer;
   private final AtomicLong latest = new AtomicLong();
   private volatile BrushSettings settings = BrushSettings.defaults();
+  final LiveCutStop stop = new LiveCutStop(this::undo);
+  volatile Consumer<String> phaseHook; // for tests: runs on the worker at each phase of a cut
 
   // worker thread only
   private LiveCut live;
@@ -70,6 +78,7 @@ final class BrushSession implements ImageListener {
   private int maskPlane = -1; // the plane of mask, or -1 for a volume
   private int shownPlane = -1;
   private Roi drawing; // the stroke being drawn
+  private boolean previewExplained; // the status line said once what the contour is
 
   BrushSession(ImagePlus imp, Consumer<String> status) {
     this.imp = imp;
@@ -83,6 +92,22 @@ final class BrushSession implements ImageListener {
     this.worker = Executors.newSingleThreadExecutor(daemon("Cleave live cut"));
     this.timer = Executors.newSingleThreadScheduledExecutor(daemon("Cleave pause timer"));
     ImagePlus.addImageListener(this);
+    stop.attach(imp);
+    timer.scheduleWithFixedDelay(stop::poll, 100, 100, TimeUnit.MILLISECONDS);
+  }
+
+  /** Stops the running cut, if any (any thread); its request then shows {@value #STOPPED}. */
+  void stopCut() {
+    stop.stop();
+  }
+
+  /** Undoes the last change of the strokes (event thread); says so if there is none. */
+  void undo() {
+    if (strokes.undo()) {
+      strokesChanged();
+    } else {
+      status.accept("nothing to undo");
+    }
   }
 
   BrushSettings settings() {
@@ -159,7 +184,9 @@ final class BrushSession implements ImageListener {
     if (gen != latest.get()) {
       return; // a newer request replaces this one
     }
-    try {
+    stop.begin(gen);
+    int voxels = features.size();
+    try (WorkProgress progress = WorkProgress.start()) {
       SeedLabels seeds = snap.labels();
       boolean volume = s.volume() && features.depth() > 1;
       if (model == null || relearn || modelKind != s.likelihood()) {
@@ -167,20 +194,33 @@ final class BrushSession implements ImageListener {
           show(gen, null, -1, "paint a foreground and a background stroke to see the cut");
           return;
         }
-        cutFeatures = liveFeatures(seeds);
-        model = ModelLearner.learn(cutFeatures, seeds, s.likelihood());
+        progress.phase("learning the likelihoods from the seeds (Esc stops)", 0, 0.5, voxels);
+        phase("learn");
+        Raster f = liveFeatures(seeds);
+        stopIfAsked();
+        LikelihoodModel m = ModelLearner.learn(f, seeds, s.likelihood());
+        stopIfAsked();
+        cutFeatures = f; // all three together: a stop leaves the previous ones
+        model = m;
         modelKind = s.likelihood();
         live = null;
       }
       Neighborhood nb = neighborhood(s.neighborhood(), volume);
       String key = (volume ? "volume" : "plane " + plane) + " " + nb;
       if (live == null || !key.equals(liveKey)) {
-        live = new LiveCut(volume ? cutFeatures : plane(cutFeatures, plane), nb);
-        live.useModel(model);
+        LiveCut next = new LiveCut(volume ? cutFeatures : plane(cutFeatures, plane), nb);
+        next.useModel(model);
+        live = next;
         liveKey = key;
       }
+      progress.phase("cutting (Esc stops)", 0.5, 0.95, volume ? voxels : voxels / features.depth());
+      phase("solve");
       SeedLabels cutSeeds = volume ? seeds : plane(seeds, plane);
       LiveCut.Outcome o = live.update(cutSeeds, s.boundaryPenalty(), s.contrastScale());
+      if (o.stopped()) {
+        show(gen, null, -1, STOPPED);
+        return;
+      }
       double total = (System.nanoTime() - asked) / 1e6;
       String line =
           String.format(
@@ -192,8 +232,25 @@ final class BrushSession implements ImageListener {
               o.dynamic() ? "dynamic re-solve" : relearn ? "re-learned, full solve" : "full solve",
               total);
       show(gen, o.mask(), volume ? -1 : plane, line);
+    } catch (CancellationException e) {
+      show(gen, null, -1, STOPPED);
     } catch (RuntimeException e) {
       show(gen, null, -1, "cannot cut: " + e.getMessage());
+    } finally {
+      stop.end(); // an Esc handled here must not stop the next request
+    }
+  }
+
+  private void phase(String name) {
+    Consumer<String> hook = phaseHook;
+    if (hook != null) {
+      hook.accept(name);
+    }
+  }
+
+  private static void stopIfAsked() {
+    if (Thread.currentThread().isInterrupted()) {
+      throw new CancellationException("stopped");
     }
   }
 
@@ -215,12 +272,17 @@ final class BrushSession implements ImageListener {
           if (gen != latest.get()) {
             return; // stale
           }
+          String shown = line;
           if (newMask != null) {
             mask = newMask;
             maskPlane = plane;
+            if (!previewExplained) { // once per session, with the first contour
+              previewExplained = true;
+              shown = line + " · " + PREVIEW;
+            }
           }
           redraw();
-          status.accept(line);
+          status.accept(shown);
         });
   }
 
@@ -252,7 +314,7 @@ final class BrushSession implements ImageListener {
     if (drawing != null) {
       ov.add(drawing);
     }
-    Roi contour = contour();
+    Roi contour = CutContour.of(mask, maskPlane, imp, plane());
     if (contour != null) {
       ov.add(contour);
     }
@@ -267,41 +329,6 @@ final class BrushSession implements ImageListener {
 
   int lastMaskPlane() {
     return maskPlane;
-  }
-
-  private Roi contour() {
-    if (mask == null) {
-      return null;
-    }
-    int w = imp.getWidth();
-    int h = imp.getHeight();
-    int z = plane();
-    byte[] planeMask;
-    if (maskPlane < 0) {
-      planeMask = new byte[w * h];
-      System.arraycopy(mask, z * w * h, planeMask, 0, w * h);
-    } else if (maskPlane == z) {
-      planeMask = mask;
-    } else {
-      return null;
-    }
-    ByteProcessor bp = new ByteProcessor(w, h, planeMask);
-    bp.setThreshold(255, 255, ImageProcessor.NO_LUT_UPDATE);
-    Roi r = new ThresholdToSelection().convert(bp);
-    if (r == null) {
-      return null;
-    }
-    r.setStrokeColor(CONTOUR);
-    r.setStrokeWidth(0);
-    r.setName("cut");
-    if (imp.getStackSize() > 1) {
-      if (imp.isHyperStack()) {
-        r.setPosition(0, z + 1, 0);
-      } else {
-        r.setPosition(z + 1);
-      }
-    }
-    return r;
   }
 
   @Override
@@ -335,6 +362,7 @@ final class BrushSession implements ImageListener {
 
   private void shutdown() {
     ImagePlus.removeImageListener(this);
+    stop.detach(imp);
     latest.incrementAndGet();
     worker.shutdownNow();
     timer.shutdownNow();

@@ -5,6 +5,7 @@ import io.github.cleave.energy.CutProblem;
 import io.github.cleave.energy.EnergyParameters;
 import io.github.cleave.flow.MaxFlowResult;
 import io.github.cleave.flow.Neighborhood;
+import io.github.cleave.flow.SolveStatus;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.model.LikelihoodModel;
@@ -29,6 +30,13 @@ import io.github.cleave.model.LikelihoodModel;
  * features flattened when the pipeline's AUTO rule would flatten them; there are no refinement
  * rounds, edge placement or object rules); the commands that make masks run the whole pipeline.
  * Labels above 2 count as no seed here. Not thread-safe: one worker thread owns an instance.
+ *
+ * <p><b>Stopping.</b> If the calling thread is interrupted while the engine solves, {@link #update}
+ * returns at once with {@link Outcome#stopped()} (no mask; the interrupt flag stays set, as the
+ * engine leaves it). The kept cut then holds a flow that is not maximal; it is marked stale, and
+ * the next update applies its seeds to the kept graph and solves it from zero flow instead of
+ * continuing (the capacities are kept apart from the flow, so this costs a solve, not a rebuild).
+ * Either way the next complete outcome equals a cut built and solved from scratch.
  */
 final class LiveCut {
   private final Raster features;
@@ -42,10 +50,23 @@ final class LiveCut {
   private CutProblem cut;
   private double builtLambda = Double.NaN;
   private double builtSigma = Double.NaN;
+  private boolean stale; // the kept cut's last solve was interrupted: its flow is not maximal
 
-  /** The outcome of one update. */
-  record Outcome(
-      byte[] mask, long flowValue, boolean certified, long solveNanos, boolean dynamic) {}
+  /**
+   * The outcome of one update.
+   *
+   * @param mask the foreground mask (255 foreground, 0 background), or null if stopped
+   * @param flowValue the maximum flow (= minimum cut value), or -1 if stopped
+   * @param certified whether the certificate of optimality was checked
+   * @param solveNanos time spent in the solver
+   * @param dynamic whether the kept flow was re-used (dynamic re-solve)
+   */
+  record Outcome(byte[] mask, long flowValue, boolean certified, long solveNanos, boolean dynamic) {
+    /** Whether the solve was interrupted before it finished (there is then no mask). */
+    boolean stopped() {
+      return mask == null;
+    }
+  }
 
   /**
    * @param features the driving channels of the plane or volume being cut
@@ -87,6 +108,7 @@ final class LiveCut {
    * @param seeds labels of the features' voxels (hard constraints; may be empty)
    * @param lambda the boundary penalty
    * @param contrastScale σ, or NaN to estimate it from the features
+   * @return the cut, or an outcome that {@link Outcome#stopped()} if the thread was interrupted
    * @throws IllegalStateException if no model was given
    */
   Outcome update(SeedLabels seeds, double lambda, double contrastScale) {
@@ -104,22 +126,34 @@ final class LiveCut {
         new SeedLabels(
             features.width(), features.height(), features.depth(), twoClass(seeds.labels()));
     MaxFlowResult result;
-    boolean dynamic = cut != null && lambda == builtLambda && s == builtSigma;
-    if (dynamic) {
+    boolean reuse = cut != null && lambda == builtLambda && s == builtSigma;
+    boolean dynamic = reuse && !stale;
+    if (reuse) {
       cut.changeSeeds(labels);
-      result = cut.resolve();
+      result = stale ? cut.solve() : cut.resolve(); // solve(): from zero flow, same graph
     } else {
       build(labels, lambda, s);
       result = cut.solve();
     }
+    if (result.status() == SolveStatus.INTERRUPTED) {
+      stale = true;
+      return new Outcome(null, -1, false, result.solveNanos(), dynamic);
+    }
+    stale = false;
     boolean certified = cut.solver().checkCertificate();
     return new Outcome(
         CutProblem.mask(result), result.flowValue(), certified, result.solveNanos(), dynamic);
   }
 
+  /** Whether the kept cut's last solve was interrupted (the next update solves from zero flow). */
+  boolean isStale() {
+    return stale;
+  }
+
   private void build(SeedLabels seeds, double lambda, double s) {
     EnergyParameters p = new EnergyParameters(lambda, s, neighborhood, features.voxelSize());
     cut = CutProblem.build(features, foregroundCost, backgroundCost, seeds, p, true);
+    stale = false;
     builtLambda = lambda;
     builtSigma = s;
   }

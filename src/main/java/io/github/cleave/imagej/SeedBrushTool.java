@@ -1,15 +1,18 @@
 package io.github.cleave.imagej;
 
+import ij.Executer;
 import ij.ImagePlus;
 import ij.gui.ImageCanvas;
 import ij.gui.PolygonRoi;
 import ij.gui.Roi;
+import ij.gui.Toolbar;
 import ij.plugin.tool.PlugInTool;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.render.SeedColours;
 import java.awt.BasicStroke;
 import java.awt.Color;
 import java.awt.event.MouseEvent;
+import java.util.Collections;
 import java.util.IdentityHashMap;
 import java.util.Map;
 
@@ -21,12 +24,17 @@ import java.util.Map;
  * does nothing.
  *
  * <p>ImageJ keeps one tool per toolbar slot, so there is one instance ({@link #get()}), which knows
- * every image being painted. Event-thread only.
+ * every image being painted. While any image is painted, ImageJ's Edit &gt; Undo (Ctrl+Z) on it
+ * undoes strokes when this tool is selected ({@link BrushUndo}). Event-thread only, except {@link
+ * #session} and {@link #isSelected}.
  */
 final class SeedBrushTool extends PlugInTool {
   private static SeedBrushTool instance;
 
-  private final Map<ImagePlus, BrushSession> sessions = new IdentityHashMap<>();
+  // read by ImageJ's command thread too (BrushUndo)
+  private final Map<ImagePlus, BrushSession> sessions =
+      Collections.synchronizedMap(new IdentityHashMap<>());
+  private final BrushUndo undo = new BrushUndo(this, SeedBrushTool::isSelected);
   private float[] xs = new float[64];
   private float[] ys = new float[64];
   private int count;
@@ -41,7 +49,15 @@ final class SeedBrushTool extends PlugInTool {
   }
 
   void attach(BrushSession s) {
+    if (sessions.isEmpty()) {
+      Executer.addCommandListener(undo);
+    }
     sessions.put(s.imp, s);
+  }
+
+  /** Whether the seed brush is the tool selected in ImageJ's toolbar (false without a toolbar). */
+  static boolean isSelected() {
+    return instance != null && Toolbar.getPlugInTool() == instance;
   }
 
   /** The session painting {@code imp}, or null. */
@@ -51,6 +67,9 @@ final class SeedBrushTool extends PlugInTool {
 
   void detach(BrushSession s) {
     sessions.remove(s.imp);
+    if (sessions.isEmpty()) {
+      Executer.removeCommandListener(undo);
+    }
   }
 
   @Override

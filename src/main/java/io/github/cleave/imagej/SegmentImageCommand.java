@@ -93,7 +93,10 @@ public final class SegmentImageCommand implements PlugIn {
     LoadedImage image = ImageFiles.fromImagePlus(imp, imp.getTitle());
     IJ.showStatus("Cleave: segmenting " + imp.getTitle() + " (Esc stops)");
     Segmentation result;
-    try (EscapeWatch esc = EscapeWatch.interrupting(Thread.currentThread())) {
+    try (EscapeWatch esc = EscapeWatch.interrupting(Thread.currentThread());
+        WorkProgress progress = WorkProgress.start()) {
+      progress.phase(
+          "segmenting " + imp.getTitle() + " (Esc stops)", 0, 0.95, image.raster().size());
       result = segment(image, seeds, settings);
     } finally {
       Thread.interrupted(); // a late Esc must not reach the caller's next wait

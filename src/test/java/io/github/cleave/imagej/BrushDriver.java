@@ -29,8 +29,10 @@ import javax.imageio.ImageIO;
  * SeedBrushGuiTest} (so that ImageJ's static state and preferences stay out of the test JVM):
  * paints one foreground stroke and, with Alt held, one background stroke with java.awt.Robot, waits
  * for the live cut, presses "Create mask", then clicks the boundary penalty slider's track and
- * waits for the new cut. Writes what it saw to {@code OUT/result.properties} and screenshots to
- * {@code OUT}; exits 0 when the scenario ran (the test judges the values).
+ * waits for the new cut; finally paints a third stroke and presses Ctrl+Z on the image window
+ * (ImageJ's Edit &gt; Undo, which the brush takes over). Writes what it saw to {@code
+ * OUT/result.properties} and screenshots to {@code OUT}; exits 0 when the scenario ran (the test
+ * judges the values).
  */
 public final class BrushDriver {
   static final Path SAMPLES = Path.of("sample-images");
@@ -114,12 +116,40 @@ public final class BrushDriver {
     result.setProperty("boundaryBefore", "" + boundaryPairs(before, 512, 512));
     result.setProperty("boundaryAfter", "" + boundaryPairs(after, 512, 512));
     save(robot, shots.resolve("brush-after-slider.png"));
+
+    // Ctrl+Z on the image window: ImageJ's Edit > Undo, routed to the strokes
+    result.setProperty("brushSelected", "" + SeedBrushTool.isSelected());
+    drag(robot, imp, plan.foreground(), false);
+    waitFor(() -> session.strokes.strokes().size() == 3, 10_000, "third stroke");
+    for (int attempt = 0; attempt < 3 && session.strokes.strokes().size() == 3; attempt++) {
+      EventQueue.invokeAndWait(() -> imp.getWindow().toFront());
+      EventQueue.invokeAndWait(() -> imp.getCanvas().requestFocus());
+      robot.waitForIdle();
+      robot.keyPress(KeyEvent.VK_CONTROL);
+      robot.keyPress(KeyEvent.VK_Z);
+      robot.keyRelease(KeyEvent.VK_Z);
+      robot.keyRelease(KeyEvent.VK_CONTROL);
+      holds(() -> session.strokes.strokes().size() != 3, 5_000);
+    }
+    holds(() -> overlayStrokes(imp) == 2, 5_000); // the redraw runs on the event thread
+    result.setProperty("strokesAfterUndo", "" + session.strokes.strokes().size());
+    result.setProperty("overlayStrokesAfterUndo", "" + overlayStrokes(imp));
     EventQueue.invokeAndWait(panel::dispose);
     result.setProperty("overlayRestored", "" + (imp.getOverlay() == null));
     try (var out = Files.newOutputStream(shots.resolve("result.properties"))) {
       result.store(out, "seed brush scenario");
     }
     Runtime.getRuntime().halt(0); // no quit: ImageJ would save its preferences
+  }
+
+  /** The stroke ROIs in the image's overlay. */
+  private static long overlayStrokes(ImagePlus imp) {
+    ij.gui.Overlay ov = imp.getOverlay();
+    return ov == null
+        ? 0
+        : java.util.Arrays.stream(ov.toArray())
+            .filter(r -> r.getName() != null && r.getName().matches("(fore|back)ground-\\d+"))
+            .count();
   }
 
   private static void drag(Robot robot, ImagePlus imp, int[] run, boolean alt) {

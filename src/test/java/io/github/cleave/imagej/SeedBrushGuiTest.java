@@ -20,8 +20,9 @@ import org.junit.jupiter.api.io.TempDir;
  * stroke and, with Alt held, one background stroke painted with the mouse give a mask within Dice
  * 0.9 of the sample's ground truth (sample-images/README.md: nuclei.truth.tif); moving the boundary
  * penalty slider up changes the cut to a shorter boundary (a larger λ never lengthens the minimum
- * cut's boundary term; pixel-edge count used as its proxy, common practice, no source). Screenshots
- * of the panel and the contour are left in {@code target/gui/}.
+ * cut's boundary term; pixel-edge count used as its proxy, common practice, no source); Ctrl+Z on
+ * the image undoes the last stroke and its overlay. Screenshots of the panel and the contour are
+ * left in {@code target/gui/}.
  */
 class SeedBrushGuiTest {
   @Test
@@ -68,6 +69,11 @@ class SeedBrushGuiTest {
     assertThat(Long.parseLong(r.getProperty("boundaryAfter")))
         .isLessThan(Long.parseLong(r.getProperty("boundaryBefore")));
     assertThat(r.getProperty("overlayRestored")).isEqualTo("true");
+    // Ctrl+Z on the image with the brush selected undoes the last stroke (ImageJ's Edit > Undo
+    // routed to the strokes), and the overlay shows the two strokes before it again
+    assertThat(r.getProperty("brushSelected")).isEqualTo("true");
+    assertThat(r.getProperty("strokesAfterUndo")).isEqualTo("2");
+    assertThat(r.getProperty("overlayStrokesAfterUndo")).isEqualTo("2");
     assertThat(out.resolve("brush-contour.png")).exists();
   }
 }
