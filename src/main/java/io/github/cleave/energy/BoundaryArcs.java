@@ -73,7 +73,8 @@ final class BoundaryArcs {
    * The capacities of single pairs, equal to those {@link #set} stores, for graphs over part of a
    * grid: {@code between(p, k)} is the capacity between voxel {@code p} and its neighbour in
    * direction {@code k}, which the caller guarantees to lie inside the grid. Built in O(n) (an int
-   * copy of a whole-number grey image) plus the tables; O(channels) per pair.
+   * copy of a whole-number grey image) plus the tables; O(channels) per pair. {@link #fillRow}
+   * keeps a buffer: one instance per thread.
    */
   static final class PairCapacities {
     private final float[][] channels;
@@ -86,6 +87,7 @@ final class BoundaryArcs {
     private final int width;
     private final int height;
     private final int depth;
+    private int[] line; // one direction of one row, while filling
 
     PairCapacities(Raster features, EnergyParameters parameters) {
       this(features, parameters, features.size() / 4);
@@ -147,6 +149,9 @@ final class BoundaryArcs {
      * either end, by the same table, so both arcs of a pair get the same value.
      */
     void fillRow(int y, int z, int[] row) {
+      if (line == null || line.length < width) {
+        line = new int[width];
+      }
       int directions = nb.size();
       int first = width * (y + height * z);
       for (int k = 0; k < directions; k++) {
@@ -165,23 +170,24 @@ final class BoundaryArcs {
         }
         int step = steps[k];
         Object table = tables[k];
+        int from = first + x0;
+        int to = first + x1;
         if (table instanceof int[] differences) {
-          int length = differences.length;
-          for (int x = x0, p = first + x0; x < x1; x++, p++) {
-            int diff = Math.abs(grey[p] - grey[p + step]);
-            row[x * directions + k] = diff < length ? differences[diff] : 0;
-          }
+          greyLine(grey, differences, from, to, step, line);
         } else if (table instanceof ExponentialSteps s) {
-          for (int x = x0, p = first + x0; x < x1; x++, p++) {
+          for (int p = from; p < to; p++) {
             double sq = ContrastScale.squaredDifference(channels, p, p + step);
-            row[x * directions + k] = s.capacity(sq * inverseTwoSigmaSquared);
+            line[p - from] = s.capacity(sq * inverseTwoSigmaSquared);
           }
         } else {
           double scale = scales[k];
-          for (int x = x0, p = first + x0; x < x1; x++, p++) {
+          for (int p = from; p < to; p++) {
             double sq = ContrastScale.squaredDifference(channels, p, p + step);
-            row[x * directions + k] = capacity(scale, sq * inverseTwoSigmaSquared);
+            line[p - from] = capacity(scale, sq * inverseTwoSigmaSquared);
           }
+        }
+        for (int x = x0, a = x0 * directions + k; x < x1; x++, a += directions) {
+          row[a] = line[x - x0];
         }
       }
     }
@@ -194,6 +200,17 @@ final class BoundaryArcs {
   static int capacity(double scale, double exponent) {
     double value = scale * Math.exp(-exponent);
     return value >= 0 ? (int) Math.min(Integer.MAX_VALUE / 64, Math.rint(value)) : 0;
+  }
+
+  /**
+   * {@code out[p − from] = table[|v[p] − v[p + step]|]} (0 beyond the table) for p in [from, to).
+   */
+  private static void greyLine(int[] v, int[] table, int from, int to, int step, int[] out) {
+    int length = table.length;
+    for (int p = from; p < to; p++) {
+      int diff = Math.abs(v[p] - v[p + step]);
+      out[p - from] = diff < length ? table[diff] : 0;
+    }
   }
 
   /** An int[] by absolute difference, an {@link ExponentialSteps}, or null for the formula. */
