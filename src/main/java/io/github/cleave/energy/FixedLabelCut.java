@@ -3,6 +3,8 @@ package io.github.cleave.energy;
 import io.github.cleave.flow.GridMaxFlow;
 import io.github.cleave.flow.MaxFlowResult;
 import io.github.cleave.flow.Neighborhood;
+import io.github.cleave.flow.SparseGraphBuilder;
+import io.github.cleave.flow.SparseMaxFlow;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import java.util.Locale;
@@ -22,17 +24,52 @@ import java.util.Locale;
  * CutProblem} with the fixed voxels as hard seeds, less a constant (the boundary between fixed
  * voxels), and the minimal source set is the same: {@link #mask} returns the same mask.
  *
+ * <p><b>Representation.</b> When the free voxels are few ({@link #prefersCompact}), the graph is
+ * built on compressed adjacency ({@link SparseMaxFlow}: free voxel i is node i, then the source and
+ * the sink), whose size and search follow the free voxels alone; otherwise on the grid solver,
+ * whose arrays span the whole grid but cost less per voxel. Both give the same mask and flow.
+ *
  * <p>Cost: O(n) to list the free voxels, O(f · K) for f free voxels and K neighbours to build, and
- * a solve whose search stays among the free voxels. Memory: the grid solver (sized for the whole
- * grid) plus {@code f · K} ints while building. Not thread-safe.
+ * a solve whose search stays among the free voxels. Memory: compact, about {@value
+ * #COMPACT_BYTES_PER_ARC} bytes per arc plus 4 per voxel for the node numbers; on the grid, the
+ * grid solver plus {@code f · K} ints while building. Not thread-safe.
  */
 public final class FixedLabelCut {
-  private final GridMaxFlow solver;
-  private final byte[] fixed;
+  /**
+   * Bytes per arc of the compact graph while it is built and solved: the builder's three ints, the
+   * solver's copy of them, its forward index, and two residual arcs of three ints each.
+   */
+  static final int COMPACT_BYTES_PER_ARC = 52;
 
-  private FixedLabelCut(GridMaxFlow solver, byte[] fixed) {
-    this.solver = solver;
+  /** Bytes per voxel of the grid solver beyond its residual arcs (terminal and search state). */
+  private static final int GRID_BYTES_PER_NODE = 18;
+
+  private final byte[] fixed;
+  private final GridMaxFlow grid; // exactly one of grid and compact is set
+  private final SparseMaxFlow compact;
+  private final int[] nodes; // compact: the voxel of node i
+  private final int free;
+  private final long constant; // compact: capacity taken off both terminal arcs of a voxel
+
+  private FixedLabelCut(
+      byte[] fixed, GridMaxFlow grid, SparseMaxFlow compact, int[] nodes, int free, long constant) {
     this.fixed = fixed;
+    this.grid = grid;
+    this.compact = compact;
+    this.nodes = nodes;
+    this.free = free;
+    this.constant = constant;
+  }
+
+  /**
+   * Whether a graph of {@code free} voxels with {@code directions} neighbours each is smaller on
+   * compressed adjacency than a grid solver of {@code n} voxels (2 bytes per residual arc at the
+   * least).
+   */
+  static boolean prefersCompact(long n, long free, int directions) {
+    long compactBytes = free * (directions + 2) * COMPACT_BYTES_PER_ARC + 4 * n;
+    long gridBytes = n * (2L * directions + GRID_BYTES_PER_NODE);
+    return compactBytes <= gridBytes;
   }
 
   /**
@@ -51,6 +88,20 @@ public final class FixedLabelCut {
       float[] backgroundCost,
       SeedLabels labels,
       EnergyParameters parameters) {
+    return build(features, foregroundCost, backgroundCost, labels, parameters, null);
+  }
+
+  /**
+   * As {@link #build(Raster, float[], float[], SeedLabels, EnergyParameters)}, with the
+   * representation forced ({@code compact} true or false) or chosen ({@code null}).
+   */
+  static FixedLabelCut build(
+      Raster features,
+      float[] foregroundCost,
+      float[] backgroundCost,
+      SeedLabels labels,
+      EnergyParameters parameters,
+      Boolean compact) {
     int n = features.size();
     if (foregroundCost.length != n || backgroundCost.length != n || labels.size() != n) {
       throw new IllegalArgumentException(
@@ -64,9 +115,6 @@ public final class FixedLabelCut {
     }
     Neighborhood nb = parameters.neighborhood();
     CutProblem.checkFits(features, nb);
-    int w = features.width();
-    int h = features.height();
-    int d = features.depth();
     int directions = nb.size();
     byte[] fixed = labels.labels();
     int free = 0;
@@ -76,50 +124,97 @@ public final class FixedLabelCut {
       }
     }
     int[] nodes = new int[free];
+    for (int p = 0, i = 0; i < free; p++) {
+      if (fixed[p] != SeedLabels.FOREGROUND && fixed[p] != SeedLabels.BACKGROUND) {
+        nodes[i++] = p;
+      }
+    }
+    Arcs arcs = new Arcs(features, parameters, fixed);
+    boolean useCompact = compact != null ? compact : prefersCompact(n, free, directions);
+    return useCompact
+        ? buildCompact(fixed, nodes, free, foregroundCost, backgroundCost, arcs)
+        : buildGrid(features, fixed, nodes, free, foregroundCost, backgroundCost, arcs);
+  }
+
+  private static FixedLabelCut buildGrid(
+      Raster features,
+      byte[] fixed,
+      int[] nodes,
+      int free,
+      float[] foregroundCost,
+      float[] backgroundCost,
+      Arcs arcs) {
+    int directions = arcs.directions;
     int[] caps = new int[free * directions];
     int[] source = new int[free];
     int[] sink = new int[free];
-    BoundaryArcs.PairCapacities pairs = new BoundaryArcs.PairCapacities(features, parameters);
-    int i = 0;
-    for (int p = 0; p < n; p++) {
-      if (fixed[p] == SeedLabels.FOREGROUND || fixed[p] == SeedLabels.BACKGROUND) {
-        continue;
-      }
-      int x = p % w;
-      int y = p / w % h;
-      int z = p / (w * h);
-      long toSource = CapacityScale.toCapacity(backgroundCost[p]);
-      long toSink = CapacityScale.toCapacity(foregroundCost[p]);
-      for (int k = 0; k < directions; k++) {
-        int qx = x + nb.dx(k);
-        int qy = y + nb.dy(k);
-        int qz = z + nb.dz(k);
-        if (qx < 0 || qx >= w || qy < 0 || qy >= h || qz < 0 || qz >= d) {
-          continue;
-        }
-        int q = qx + w * (qy + h * qz);
-        int cap = pairs.between(p, k);
-        if (fixed[q] == SeedLabels.FOREGROUND) {
-          toSource += cap;
-        } else if (fixed[q] == SeedLabels.BACKGROUND) {
-          toSink += cap;
-        } else {
-          caps[i * directions + k] = cap;
-        }
-      }
-      source[i] = (int) Math.min(Integer.MAX_VALUE, toSource);
-      sink[i] = (int) Math.min(Integer.MAX_VALUE, toSink);
-      nodes[i++] = p;
+    int[] row = new int[directions];
+    for (int i = 0; i < free; i++) {
+      int p = nodes[i];
+      long[] terminals = arcs.of(p, backgroundCost[p], foregroundCost[p], row);
+      System.arraycopy(row, 0, caps, i * directions, directions);
+      source[i] = (int) Math.min(Integer.MAX_VALUE, terminals[0]);
+      sink[i] = (int) Math.min(Integer.MAX_VALUE, terminals[1]);
     }
-    GridMaxFlow solver = new GridMaxFlow(w, h, d, nb);
+    GridMaxFlow solver =
+        new GridMaxFlow(features.width(), features.height(), features.depth(), arcs.neighborhood);
     solver.setNeighborCapacitiesOf(nodes, free, caps);
     solver.setTerminalCapacitiesOf(nodes, free, source, sink);
-    return new FixedLabelCut(solver, fixed);
+    return new FixedLabelCut(fixed, solver, null, nodes, free, 0);
+  }
+
+  private static FixedLabelCut buildCompact(
+      byte[] fixed,
+      int[] nodes,
+      int free,
+      float[] foregroundCost,
+      float[] backgroundCost,
+      Arcs arcs) {
+    int directions = arcs.directions;
+    int[] index = new int[fixed.length]; // node number of each free voxel
+    for (int i = 0; i < free; i++) {
+      index[nodes[i]] = i;
+    }
+    int sourceNode = free;
+    int sinkNode = free + 1;
+    SparseGraphBuilder graph =
+        new SparseGraphBuilder(
+            free + 2, (int) Math.min(Integer.MAX_VALUE / 2, free * (directions + 1L)));
+    graph.setSource(sourceNode).setSink(sinkNode);
+    int[] row = new int[directions];
+    long constant = 0;
+    for (int i = 0; i < free; i++) {
+      int p = nodes[i];
+      long[] terminals = arcs.of(p, backgroundCost[p], foregroundCost[p], row);
+      for (int k = 0; k < directions; k++) {
+        if (row[k] > 0) {
+          graph.addArc(i, index[p + arcs.step[k]], row[k]);
+        }
+      }
+      // Only the difference of the two terminal arcs matters to the cut (the grid solver
+      // likewise keeps the difference); the common part is a constant of every cut.
+      long common = Math.min(terminals[0], terminals[1]);
+      constant += common;
+      if (terminals[0] > common) {
+        graph.addArc(sourceNode, i, Math.min(Integer.MAX_VALUE, terminals[0] - common));
+      } else if (terminals[1] > common) {
+        graph.addArc(i, sinkNode, Math.min(Integer.MAX_VALUE, terminals[1] - common));
+      }
+    }
+    return new FixedLabelCut(fixed, null, graph.build(), nodes, free, constant);
   }
 
   /** Solves the cut of the free voxels. */
   public MaxFlowResult solve() {
-    return solver.solve();
+    return grid != null ? grid.solve() : compact.solve();
+  }
+
+  /**
+   * The flow value of {@code result}, a result of {@link #solve}: the capacity of the minimum cut
+   * of the free voxels (the same whatever the representation).
+   */
+  public long flowValue(MaxFlowResult result) {
+    return result.flowValue() + constant;
   }
 
   /**
@@ -127,14 +222,81 @@ public final class FixedLabelCut {
    * cut, 0 elsewhere.
    */
   public byte[] mask(MaxFlowResult result) {
-    byte[] mask = CutProblem.mask(result);
+    byte[] mask = new byte[fixed.length];
     for (int p = 0; p < mask.length; p++) {
       if (fixed[p] == SeedLabels.FOREGROUND) {
         mask[p] = (byte) 255;
-      } else if (fixed[p] == SeedLabels.BACKGROUND) {
-        mask[p] = 0;
+      }
+    }
+    for (int i = 0; i < free; i++) {
+      if (result.isSourceSide(grid != null ? nodes[i] : i)) {
+        mask[nodes[i]] = (byte) 255;
       }
     }
     return mask;
+  }
+
+  /**
+   * The arcs of one free voxel: boundary capacities towards free neighbours, and the terminal
+   * capacities with the boundary towards fixed neighbours folded in.
+   */
+  private static final class Arcs {
+    final Neighborhood neighborhood;
+    final int directions;
+    final int[] step;
+    private final BoundaryArcs.PairCapacities pairs;
+    private final byte[] fixed;
+    private final int width;
+    private final int height;
+    private final int depth;
+    private final long[] terminals = new long[2];
+
+    Arcs(Raster features, EnergyParameters parameters, byte[] fixed) {
+      neighborhood = parameters.neighborhood();
+      directions = neighborhood.size();
+      pairs = new BoundaryArcs.PairCapacities(features, parameters);
+      this.fixed = fixed;
+      width = features.width();
+      height = features.height();
+      depth = features.depth();
+      step = new int[directions];
+      for (int k = 0; k < directions; k++) {
+        step[k] = neighborhood.dx(k) + width * (neighborhood.dy(k) + height * neighborhood.dz(k));
+      }
+    }
+
+    /**
+     * Fills {@code row[k]} with the capacity towards the free neighbour in direction k (0 when the
+     * neighbour is fixed or outside the grid) and returns {source, sink} capacities of {@code p};
+     * the array is reused by the next call.
+     */
+    long[] of(int p, float backgroundCost, float foregroundCost, int[] row) {
+      int x = p % width;
+      int y = p / width % height;
+      int z = p / (width * height);
+      long toSource = CapacityScale.toCapacity(backgroundCost);
+      long toSink = CapacityScale.toCapacity(foregroundCost);
+      for (int k = 0; k < directions; k++) {
+        row[k] = 0;
+        int qx = x + neighborhood.dx(k);
+        int qy = y + neighborhood.dy(k);
+        int qz = z + neighborhood.dz(k);
+        if (qx < 0 || qx >= width || qy < 0 || qy >= height || qz < 0 || qz >= depth) {
+          continue;
+        }
+        int cap = pairs.between(p, k);
+        byte label = fixed[p + step[k]];
+        if (label == SeedLabels.FOREGROUND) {
+          toSource += cap;
+        } else if (label == SeedLabels.BACKGROUND) {
+          toSink += cap;
+        } else {
+          row[k] = cap;
+        }
+      }
+      terminals[0] = toSource;
+      terminals[1] = toSink;
+      return terminals;
+    }
   }
 }

@@ -10,9 +10,9 @@ import java.util.Arrays;
  */
 public final class SparseGraphBuilder implements FlowArcSink {
   private final int nodeCount;
-  private int[] tails = new int[16];
-  private int[] heads = new int[16];
-  private int[] capacities = new int[16];
+  private int[] tails;
+  private int[] heads;
+  private int[] capacities;
   private int arcCount;
   private int source = -1;
   private int sink = -1;
@@ -23,6 +23,22 @@ public final class SparseGraphBuilder implements FlowArcSink {
    * @throws IllegalArgumentException if {@code nodeCount < 2}
    */
   public SparseGraphBuilder(int nodeCount) {
+    this(nodeCount, 16);
+  }
+
+  /**
+   * A builder for a network of {@code nodeCount} nodes and no arcs, with room for {@code
+   * expectedArcs} arcs before its arrays must grow.
+   *
+   * @throws IllegalArgumentException if {@code nodeCount < 2} or {@code expectedArcs < 0}
+   */
+  public SparseGraphBuilder(int nodeCount, int expectedArcs) {
+    if (expectedArcs < 0) {
+      throw new IllegalArgumentException("expected arc count " + expectedArcs + " is negative");
+    }
+    tails = new int[Math.max(1, expectedArcs)];
+    heads = new int[tails.length];
+    capacities = new int[tails.length];
     if (nodeCount < 2) {
       throw new IllegalArgumentException(
           "a flow network needs at least 2 nodes (a source and a sink), got " + nodeCount);

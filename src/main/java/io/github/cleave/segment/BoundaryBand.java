@@ -29,19 +29,24 @@ final class BoundaryBand {
     boolean[] out = new boolean[mask.length];
     int plane = w * h;
     for (int z = 0; z < d; z++) {
-      boolean below = !planes && z > 0;
-      boolean above = !planes && z < d - 1;
+      // a missing neighbour is compared with the voxel itself, which never differs
+      int below = !planes && z > 0 ? -plane : 0;
+      int above = !planes && z < d - 1 ? plane : 0;
       for (int y = 0; y < h; y++) {
+        int up = y > 0 ? -w : 0;
+        int down = y < h - 1 ? w : 0;
         int row = w * (y + h * z);
         for (int x = 0, p = row; x < w; x++, p++) {
+          int left = x > 0 ? -1 : 0;
+          int right = x < w - 1 ? 1 : 0;
           boolean fg = mask[p] != 0;
           out[p] =
-              x > 0 && (mask[p - 1] != 0) != fg
-                  || x < w - 1 && (mask[p + 1] != 0) != fg
-                  || y > 0 && (mask[p - w] != 0) != fg
-                  || y < h - 1 && (mask[p + w] != 0) != fg
-                  || below && (mask[p - plane] != 0) != fg
-                  || above && (mask[p + plane] != 0) != fg;
+              (mask[p + left] != 0) != fg
+                  | (mask[p + right] != 0) != fg
+                  | (mask[p + up] != 0) != fg
+                  | (mask[p + down] != 0) != fg
+                  | (mask[p + below] != 0) != fg
+                  | (mask[p + above] != 0) != fg;
         }
       }
     }

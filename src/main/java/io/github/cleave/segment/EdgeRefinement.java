@@ -174,7 +174,7 @@ final class EdgeRefinement {
       throw new CancellationException("segmentation interrupted");
     }
     return new Segmenter.CutOutcome(
-        problem.mask(result), result.flowValue(), buildMs, result.solveNanos() / 1e6);
+        problem.mask(result), problem.flowValue(result), buildMs, result.solveNanos() / 1e6);
   }
 
   /**

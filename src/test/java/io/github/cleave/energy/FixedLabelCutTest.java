@@ -70,14 +70,15 @@ class FixedLabelCutTest {
             0.5 + random.nextDouble() * 4, 10 + random.nextDouble() * 60, nb, size);
     SeedLabels labels = new SeedLabels(w, h, d, fixed);
 
-    FixedLabelCut part = FixedLabelCut.build(image, fgCost, bgCost, labels, parameters);
-    MaxFlowResult partResult = part.solve();
     CutProblem grid = CutProblem.build(image, fgCost, bgCost, labels, parameters, true);
     MaxFlowResult wholeResult = grid.solve();
-
-    assertThat(part.mask(partResult)).isEqualTo(CutProblem.mask(wholeResult));
-    assertThat(wholeResult.flowValue() - partResult.flowValue())
-        .isEqualTo(fixedBoundary(image, fixed, parameters));
+    for (boolean compact : new boolean[] {false, true}) { // both representations
+      FixedLabelCut part = FixedLabelCut.build(image, fgCost, bgCost, labels, parameters, compact);
+      MaxFlowResult partResult = part.solve();
+      assertThat(part.mask(partResult)).isEqualTo(CutProblem.mask(wholeResult));
+      assertThat(wholeResult.flowValue() - part.flowValue(partResult))
+          .isEqualTo(fixedBoundary(image, fixed, parameters));
+    }
   }
 
   /** Σ B_pq over neighbour pairs with p fixed foreground and q fixed background, by the formula. */
