@@ -7,8 +7,9 @@ package io.github.cleave.objects;
  * <p>P. F. Felzenszwalb and D. P. Huttenlocher, "Distance transforms of sampled functions", Theory
  * of Computing 8(19):415–428, 2012, doi:10.4086/toc.2012.v008a019: the squared distance is
  * separable, so one 1D lower-envelope-of-parabolas pass along x, then y, then z gives the exact
- * result; a pass along an axis with spacing {@code s} places sample {@code q} at {@code q·s}. O(N)
- * time per pass, O(max(w, h, d)) extra memory.
+ * result; a pass along an axis with spacing {@code s} places sample {@code q} at {@code q·s}. Only
+ * lines holding foreground are transformed (the others are 0 throughout). O(N) time per pass,
+ * O(max(w, h, d)) extra memory besides the map and one flag per line.
  *
  * <p>Voxels outside the image are not background (ImageJ's EDM does the same), so an object cut by
  * the image edge is not split at the edge. Where no background exists at all the distance is {@link
@@ -21,30 +22,51 @@ final class DistanceMap {
   static float[] distance(byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
     int n = mask.length;
     double[] f = new double[n]; // squared distances, +inf where not yet reached
-    for (int i = 0; i < n; i++) {
-      f[i] = mask[i] != 0 ? Double.POSITIVE_INFINITY : 0;
+    boolean[] rowHas = new boolean[h * d]; // lines holding foreground, by axis
+    boolean[] columnHas = new boolean[w * d]; // x + w·z
+    boolean[] pillarHas = new boolean[w * h]; // x + w·y
+    for (int z = 0, i = 0; z < d; z++) {
+      for (int y = 0; y < h; y++) {
+        for (int x = 0; x < w; x++, i++) {
+          if (mask[i] != 0) {
+            f[i] = Double.POSITIVE_INFINITY;
+            rowHas[y + h * z] = true;
+            columnHas[x + w * z] = true;
+            pillarHas[x + w * y] = true;
+          }
+        }
+      }
     }
+    // a line without foreground is 0 throughout and stays so: only lines with foreground are done
     Line line = new Line(Math.max(w, Math.max(h, d)));
     for (int z = 0; z < d; z++) {
       for (int y = 0; y < h; y++) {
-        line.transform(f, w * (y + h * z), 1, w, sx);
+        if (rowHas[y + h * z]) {
+          line.transform(f, w * (y + h * z), 1, w, sx);
+        }
       }
     }
     for (int z = 0; z < d; z++) {
       for (int x = 0; x < w; x++) {
-        line.transform(f, x + w * h * z, w, h, sy);
+        if (columnHas[x + w * z]) {
+          line.transform(f, x + w * h * z, w, h, sy);
+        }
       }
     }
     if (d > 1) {
       for (int y = 0; y < h; y++) {
         for (int x = 0; x < w; x++) {
-          line.transform(f, x + w * y, w * h, d, sz);
+          if (pillarHas[x + w * y]) {
+            line.transform(f, x + w * y, w * h, d, sz);
+          }
         }
       }
     }
     float[] out = new float[n];
     for (int i = 0; i < n; i++) {
-      out[i] = (float) Math.sqrt(f[i]);
+      if (mask[i] != 0) { // background stays 0
+        out[i] = (float) Math.sqrt(f[i]);
+      }
     }
     return out;
   }

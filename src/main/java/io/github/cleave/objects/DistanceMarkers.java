@@ -23,7 +23,11 @@ final class DistanceMarkers {
   static int[] markers(float[] dist, int w, int h, int d, float tolerance) {
     int n = dist.length;
     float[] rec = new float[n]; // reconstruction; -inf outside the foreground
-    FloodQueue queue = new FloodQueue();
+    int foreground = 0;
+    for (float v : dist) {
+      foreground += v > 0 ? 1 : 0;
+    }
+    FloodQueue queue = new FloodQueue(foreground + foreground / 4);
     for (int i = 0; i < n; i++) {
       if (dist[i] > 0) {
         rec[i] = dist[i] - tolerance;

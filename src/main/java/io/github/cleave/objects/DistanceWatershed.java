@@ -1,8 +1,5 @@
 package io.github.cleave.objects;
 
-import ij.plugin.filter.EDM;
-import ij.process.ByteProcessor;
-
 /**
  * Splits touching objects at the necks of the Euclidean distance map (EDM): a watershed of the
  * distance to the background, flooded from its maxima (L. Vincent and P. Soille, "Watersheds in
@@ -14,8 +11,9 @@ import ij.process.ByteProcessor;
  * <p><b>Single plane</b>: ImageJ's own EDM watershed ({@code ij.plugin.filter.EDM#toWatershed}),
  * with its maxima tolerance of 0.5 pixel, on a 0/255 {@code ByteProcessor} (foreground 255; that
  * method always treats 0 as background, so the result does not depend on the user's
- * black-background or LUT preferences). It measures distances in pixels (calibration is not used).
- * Its one-pixel separating lines are given back to the neighbouring object nearest in breadth-first
+ * black-background or LUT preferences), run per 8-connected component on a crop with the same
+ * result ({@link PlaneWatershed}). It measures distances in pixels (calibration is not used). Its
+ * one-pixel separating lines are given back to the neighbouring object nearest in breadth-first
  * steps ({@link SeededGrowth}), so no foreground pixel is lost.
  *
  * <p><b>Stack</b> (ImageJ has no 3D EDM watershed): exact Euclidean distance in calibrated units
@@ -32,20 +30,14 @@ import ij.process.ByteProcessor;
 final class DistanceWatershed {
   private DistanceWatershed() {}
 
-  /** Object labels (not yet renumbered) covering the whole mask. */
+  /** Object labels covering the whole mask, numbered in first-voxel order. */
   static int[] split(byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
-    return d == 1 ? splitPlane(mask, w, h) : splitStack(mask, w, h, d, sx, sy, sz);
-  }
-
-  private static int[] splitPlane(byte[] mask, int w, int h) {
-    ByteProcessor bp = new ByteProcessor(w, h);
-    byte[] px = (byte[]) bp.getPixels();
-    for (int i = 0; i < px.length; i++) {
-      px[i] = mask[i] != 0 ? (byte) 255 : 0;
+    if (d == 1) {
+      return PlaneWatershed.split(mask, w, h);
     }
-    new EDM().toWatershed(bp);
-    int[] seeds = ConnectedComponents.label(px, w, h, 1, null, 0);
-    return SeededGrowth.grow(mask, w, h, 1, seeds);
+    int[] labels = splitStack(mask, w, h, d, sx, sy, sz);
+    ObjectLabels.adopt(w, h, d, labels);
+    return labels;
   }
 
   private static int[] splitStack(

@@ -8,11 +8,23 @@ import java.util.Arrays;
  * doubling; push and pop O(log size).
  */
 final class FloodQueue {
-  private float[] priority = new float[64];
-  private long[] order = new long[64]; // insertion number, for FIFO among equal priorities
-  private int[] node = new int[64];
+  private float[] priority;
+  private long[] order; // insertion number, for FIFO among equal priorities
+  private int[] node;
   private int size;
   private long pushed;
+
+  FloodQueue() {
+    this(64);
+  }
+
+  /** A queue with room for {@code capacity} entries before it grows. */
+  FloodQueue(int capacity) {
+    int c = Math.max(1, capacity);
+    priority = new float[c];
+    order = new long[c];
+    node = new int[c];
+  }
 
   boolean isEmpty() {
     return size == 0;

@@ -13,12 +13,25 @@ final class Grids {
   private final int d;
   private final boolean full; // true: 8 (2D) / 26 (3D) neighbours; false: 4 / 6
   final int[] buffer = new int[26]; // neighbour indices written by neighbours()
+  private final int[] inner; // offsets of the full neighbourhood, in the order of neighbours()
 
   Grids(int w, int h, int d, boolean full) {
     this.w = w;
     this.h = h;
     this.d = d;
     this.full = full;
+    int[] o = new int[26];
+    int m = 0;
+    for (int dz = d > 1 ? -1 : 0; dz <= (d > 1 ? 1 : 0); dz++) {
+      for (int dy = -1; dy <= 1; dy++) {
+        for (int dx = -1; dx <= 1; dx++) {
+          if (dx != 0 || dy != 0 || dz != 0) {
+            o[m++] = dx + w * (dy + h * dz);
+          }
+        }
+      }
+    }
+    inner = java.util.Arrays.copyOf(o, m);
   }
 
   /**
@@ -51,6 +64,12 @@ final class Grids {
         buffer[n++] = i + w * h;
       }
       return n;
+    }
+    if (x > 0 && x < w - 1 && y > 0 && y < h - 1 && (d == 1 || (z > 0 && z < d - 1))) {
+      for (int k = 0; k < inner.length; k++) { // away from the border: a fixed table
+        buffer[k] = i + inner[k];
+      }
+      return inner.length;
     }
     int z0 = z > 0 ? -1 : 0;
     int z1 = z < d - 1 ? 1 : 0;

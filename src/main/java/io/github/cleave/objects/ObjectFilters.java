@@ -5,7 +5,8 @@ import io.github.cleave.image.VoxelSize;
 /**
  * Removes objects by size and by contact with the image edge, then renumbers the survivors
  * consecutively in first-voxel order (they keep their relative order). One pass over the voxels to
- * collect, one to rewrite: O(N). Stateless and thread-safe.
+ * collect, one to rewrite: O(N); none when no limit is set (the labels are returned as they are).
+ * Stateless and thread-safe.
  *
  * <p>Size is the calibrated area {@code count·x·y} of a single-plane object (unit²) or the
  * calibrated volume {@code count·x·y·z} of an object in a stack (unit³); limits are inclusive. An
@@ -44,6 +45,11 @@ public final class ObjectFilters {
     int w = labels.width();
     int h = labels.height();
     int d = labels.depth();
+    double unit = d > 1 ? voxelSize.voxelVolume() : voxelSize.pixelArea();
+    boolean noMax = maxSize <= 0 || Double.isInfinite(maxSize);
+    if (minSize <= 0 && noMax && !excludeEdges && unit > 0) {
+      return labels; // every object is kept: same labels (immutable, so shared)
+    }
     int[] raw = labels.raw();
     int count = labels.count();
     long[] voxels = new long[count + 1];
@@ -62,8 +68,6 @@ public final class ObjectFilters {
         }
       }
     }
-    double unit = d > 1 ? voxelSize.voxelVolume() : voxelSize.pixelArea();
-    boolean noMax = maxSize <= 0 || Double.isInfinite(maxSize);
     int[] map = new int[count + 1];
     int kept = 0;
     for (int l = 1; l <= count; l++) {
@@ -75,6 +79,6 @@ public final class ObjectFilters {
     for (int j = 0; j < raw.length; j++) {
       out[j] = map[raw[j]];
     }
-    return ObjectLabels.adopt(w, h, d, out);
+    return ObjectLabels.ordered(w, h, d, out, kept);
   }
 }

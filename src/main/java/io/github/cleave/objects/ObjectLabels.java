@@ -65,6 +65,15 @@ public final class ObjectLabels {
     return new ObjectLabels(width, height, depth, labels, next);
   }
 
+  /**
+   * Takes ownership of {@code labels}, which must already hold 0..count in first-voxel order (not
+   * checked except under {@code assert}).
+   */
+  static ObjectLabels ordered(int width, int height, int depth, int[] labels, int count) {
+    assert Arrays.equals(adopt(width, height, depth, labels.clone()).labels, labels);
+    return new ObjectLabels(width, height, depth, labels, count);
+  }
+
   /** No objects. */
   public static ObjectLabels empty(int width, int height, int depth) {
     long n = (long) width * height * depth;

@@ -40,14 +40,24 @@ public final class ObjectSplitting {
   public static ObjectLabels split(
       byte[] mask, int w, int h, int d, VoxelSize voxelSize, ObjectSplit method, byte[] strokes) {
     Grids.check(mask.length, w, h, d, "mask");
-    int[] labels =
-        switch (method) {
-          case NONE -> ConnectedComponents.label(mask, w, h, d, null, 0);
-          case DISTANCE_WATERSHED ->
-              DistanceWatershed.split(mask, w, h, d, voxelSize.x(), voxelSize.y(), voxelSize.z());
-          case PER_STROKE -> perStroke(mask, w, h, d, strokes);
-        };
-    return ObjectLabels.adopt(w, h, d, labels);
+    return switch (method) { // the first two number their objects in first-voxel order
+      case NONE -> ordered(w, h, d, ConnectedComponents.label(mask, w, h, d, null, 0));
+      case DISTANCE_WATERSHED ->
+          ordered(
+              w,
+              h,
+              d,
+              DistanceWatershed.split(mask, w, h, d, voxelSize.x(), voxelSize.y(), voxelSize.z()));
+      case PER_STROKE -> ObjectLabels.adopt(w, h, d, perStroke(mask, w, h, d, strokes));
+    };
+  }
+
+  private static ObjectLabels ordered(int w, int h, int d, int[] labels) {
+    int count = 0;
+    for (int l : labels) {
+      count = Math.max(count, l);
+    }
+    return ObjectLabels.ordered(w, h, d, labels, count);
   }
 
   private static int[] perStroke(byte[] mask, int w, int h, int d, byte[] strokes) {

@@ -1,10 +1,8 @@
 package io.github.cleave.segment;
 
 import io.github.cleave.image.SeedLabels;
-import io.github.cleave.image.VoxelSize;
 import io.github.cleave.objects.ObjectLabels;
-import io.github.cleave.objects.ObjectSplit;
-import io.github.cleave.objects.ObjectSplitting;
+import io.github.cleave.objects.SpeckRemoval;
 
 /**
  * Keeps the mask and the objects consistent. Before objects are formed, connected components of the
@@ -13,7 +11,8 @@ import io.github.cleave.objects.ObjectSplitting;
  * microscope covers at least its point-spread function, a few pixels across; threshold: common
  * practice, no source). After the objects are formed, the mask is rewritten as the union of the
  * kept objects, so filled holes are in it and objects dropped by the size or edge filters are not:
- * a written mask and a written label image always agree. O(N). Stateless.
+ * a written mask and a written label image always agree. O(N): one scan of the mask, the rest works
+ * on runs of foreground ({@link SpeckRemoval}). Stateless.
  */
 final class MaskCleaning {
   private MaskCleaning() {}
@@ -23,24 +22,7 @@ final class MaskCleaning {
    * those holding a foreground seed.
    */
   static byte[] withoutSpecks(byte[] mask, int w, int h, int d, int minVoxels, SeedLabels seeds) {
-    ObjectLabels parts =
-        ObjectSplitting.split(mask, w, h, d, VoxelSize.PIXELS, ObjectSplit.NONE, null);
-    int[] sizes = new int[parts.count() + 1];
-    for (int i = 0; i < mask.length; i++) {
-      sizes[parts.labelAt(i)]++;
-    }
-    byte[] seedLabels = seeds.labels();
-    for (int i = 0; i < mask.length; i++) {
-      if (seedLabels[i] == SeedLabels.FOREGROUND) {
-        sizes[parts.labelAt(i)] = Integer.MAX_VALUE; // a piece the user marked is never a speck
-      }
-    }
-    byte[] out = new byte[mask.length];
-    for (int i = 0; i < mask.length; i++) {
-      int k = parts.labelAt(i);
-      out[i] = k != 0 && sizes[k] >= minVoxels ? (byte) 255 : 0;
-    }
-    return out;
+    return SpeckRemoval.withoutSpecks(mask, w, h, d, minVoxels, seeds.labels());
   }
 
   /** The mask of the kept objects: 255 where a label is nonzero, 0 elsewhere. */

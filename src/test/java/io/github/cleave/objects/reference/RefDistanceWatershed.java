@@ -1,0 +1,93 @@
+package io.github.cleave.objects.reference;
+
+import ij.plugin.filter.EDM;
+import ij.process.ByteProcessor;
+
+/**
+ * Splits touching objects at the necks of the Euclidean distance map (EDM): a watershed of the
+ * distance to the background, flooded from its maxima (L. Vincent and P. Soille, "Watersheds in
+ * digital spaces: an efficient algorithm based on immersion simulations", IEEE Trans. PAMI
+ * 13(6):583–598, 1991, doi:10.1109/34.87344; flooding from markers with a priority queue as in F.
+ * Meyer, "Topographic distance and watershed lines", Signal Processing 38:113–125, 1994, from
+ * memory).
+ *
+ * <p><b>Single plane</b>: ImageJ's own EDM watershed ({@code ij.plugin.filter.EDM#toWatershed}),
+ * with its maxima tolerance of 0.5 pixel, on a 0/255 {@code ByteProcessor} (foreground 255; that
+ * method always treats 0 as background, so the result does not depend on the user's
+ * black-background or LUT preferences). It measures distances in pixels (calibration is not used).
+ * Its one-pixel separating lines are given back to the neighbouring object nearest in breadth-first
+ * steps ({@link RefSeededGrowth}), so no foreground pixel is lost.
+ *
+ * <p><b>Stack</b> (ImageJ has no 3D EDM watershed): exact Euclidean distance in calibrated units
+ * ({@link RefDistanceMap}, honouring anisotropic voxels); markers are the maxima that rise more
+ * than half the smallest voxel side above their saddle ({@link RefDistanceMarkers}: the same 0.5
+ * tolerance as ImageJ's, in voxel units along the finest axis); then the flood: marker voxels label
+ * their 26-neighbours, which enter a priority queue keyed by distance (highest first, FIFO among
+ * equal distances); each popped voxel labels its unlabelled neighbours. A voxel takes the label of
+ * the first labelled neighbour that reaches it, so the dividing surface goes to one side and no
+ * voxel is lost. Deterministic; O(N log N).
+ *
+ * <p>Each resulting object is connected. Stateless and thread-safe.
+ */
+final class RefDistanceWatershed {
+  private RefDistanceWatershed() {}
+
+  /** Object labels (not yet renumbered) covering the whole mask. */
+  static int[] split(byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
+    return d == 1 ? splitPlane(mask, w, h) : splitStack(mask, w, h, d, sx, sy, sz);
+  }
+
+  private static int[] splitPlane(byte[] mask, int w, int h) {
+    ByteProcessor bp = new ByteProcessor(w, h);
+    byte[] px = (byte[]) bp.getPixels();
+    for (int i = 0; i < px.length; i++) {
+      px[i] = mask[i] != 0 ? (byte) 255 : 0;
+    }
+    new EDM().toWatershed(bp);
+    int[] seeds = RefConnectedComponents.label(px, w, h, 1, null, 0);
+    return RefSeededGrowth.grow(mask, w, h, 1, seeds);
+  }
+
+  private static int[] splitStack(
+      byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
+    float[] dist = RefDistanceMap.distance(mask, w, h, d, sx, sy, sz);
+    float tolerance = (float) (0.5 * Math.min(sx, Math.min(sy, sz)));
+    int[] labels = RefDistanceMarkers.markers(dist, w, h, d, tolerance);
+    RefGrids grid = new RefGrids(w, h, d, true);
+    int[] nb = grid.buffer;
+    RefFloodQueue queue = new RefFloodQueue();
+    int n = mask.length;
+    boolean[] marker = new boolean[n];
+    for (int i = 0; i < n; i++) {
+      marker[i] = labels[i] != 0;
+    }
+    for (int p = 0; p < n; p++) {
+      if (marker[p]) {
+        visit(p, labels, dist, mask, grid, nb, queue);
+      }
+    }
+    while (!queue.isEmpty()) {
+      visit(queue.pop(), labels, dist, mask, grid, nb, queue);
+    }
+    return RefSeededGrowth.grow(mask, w, h, d, labels); // components without a marker, if any
+  }
+
+  /** Gives {@code p}'s label to its unlabelled foreground neighbours and queues them. */
+  private static void visit(
+      int p,
+      int[] labels,
+      float[] dist,
+      byte[] mask,
+      RefGrids grid,
+      int[] nb,
+      RefFloodQueue queue) {
+    int m = grid.neighbours(p);
+    for (int j = 0; j < m; j++) {
+      int q = nb[j];
+      if (mask[q] != 0 && labels[q] == 0) {
+        labels[q] = labels[p];
+        queue.push(q, dist[q]);
+      }
+    }
+  }
+}
