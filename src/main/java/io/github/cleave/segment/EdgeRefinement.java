@@ -117,8 +117,13 @@ final class EdgeRefinement {
         }
       }
     }
-    int[] objectSource = nearest(inside, band, w, h, d, planes);
-    int[] backgroundSource = nearest(ring, band, w, h, d, planes);
+    int[] bandVoxels = members(band);
+    int[] rank = new int[n]; // 1 + the position in bandVoxels of a band voxel, 0 elsewhere
+    for (int i = 0; i < bandVoxels.length; i++) {
+      rank[bandVoxels[i]] = i + 1;
+    }
+    int[] objectSource = nearest(inside, bandVoxels, rank, w, h, d, planes);
+    int[] backgroundSource = nearest(ring, bandVoxels, rank, w, h, d, planes);
     Levels levels =
         Levels.measure(
             features,
@@ -129,14 +134,17 @@ final class EdgeRefinement {
             zReach(WINDOW, features, planes));
     int channels = features.channelCount();
     float[][] costs = new float[2][n];
-    byte[] hard = seeds.labels().clone();
+    byte[] seedLabels = seeds.labels();
+    byte[] hard = new byte[n]; // seeds, and the cut's labels; band voxels freed below
     for (int p = 0; p < n; p++) {
-      if (hard[p] != 0) {
-        continue;
-      }
-      int so = objectSource[p];
-      int sb = backgroundSource[p];
-      boolean free = so >= 0 && sb >= 0; // both -1 outside the band
+      byte cut = (byte) (mask[p] != 0 ? SeedLabels.FOREGROUND : SeedLabels.BACKGROUND);
+      hard[p] = seedLabels[p] != 0 ? seedLabels[p] : cut;
+    }
+    for (int i = 0; i < bandVoxels.length; i++) {
+      int p = bandVoxels[i];
+      int so = objectSource[i];
+      int sb = backgroundSource[i];
+      boolean free = seedLabels[p] == 0 && so >= 0 && sb >= 0;
       double fg = 0;
       double bg = 0;
       for (int c = 0; c < channels && free; c++) {
@@ -148,13 +156,12 @@ final class EdgeRefinement {
         fg += a * a / s2;
         bg += b * b / s2;
       }
-      if (!free) {
-        hard[p] = (byte) (mask[p] != 0 ? SeedLabels.FOREGROUND : SeedLabels.BACKGROUND);
-        continue;
+      if (free) {
+        double min = Math.min(fg, bg);
+        costs[0][p] = (float) (fg - min);
+        costs[1][p] = (float) (bg - min);
+        hard[p] = 0;
       }
-      double min = Math.min(fg, bg);
-      costs[0][p] = (float) (fg - min);
-      costs[1][p] = (float) (bg - min);
     }
     SeedLabels constraints = new SeedLabels(w, h, d, hard);
     PlaneCuts.Cutter cutter = (f, c, fixed) -> cutFree(f, c, fixed, parameters);
@@ -300,61 +307,82 @@ final class EdgeRefinement {
     return out;
   }
 
+  /** The indices of the true entries of {@code set}, ascending. */
+  private static int[] members(boolean[] set) {
+    int count = 0;
+    for (boolean b : set) {
+      if (b) {
+        count++;
+      }
+    }
+    int[] out = new int[count];
+    for (int p = 0, i = 0; i < count; p++) {
+      if (set[p]) {
+        out[i++] = p;
+      }
+    }
+    return out;
+  }
+
   /**
-   * For every voxel of {@code band}, the nearest voxel with a nonzero {@code source} value reached
-   * through the band (breadth-first, axial steps, ties to the one reached first); -1 elsewhere. The
-   * search starts from the source voxels next to the band, in raster order (the others could only
-   * reach the band through these), so it visits the band and its rim, not the whole image.
+   * For the i-th voxel of {@code bandVoxels}, the nearest voxel with a nonzero {@code source} value
+   * reached through the band (breadth-first, axial steps, ties to the one reached first), or -1.
+   * The search starts from the source voxels next to the band, in raster order (the others could
+   * reach the band only through these), so its cost follows the size of the band, not of the image.
+   *
+   * @param rank 1 + the position in {@code bandVoxels} of each band voxel, 0 elsewhere
    */
-  private static int[] nearest(byte[] source, boolean[] band, int w, int h, int d, boolean planes) {
-    int n = source.length;
-    int plane = w * h;
-    int[] from = new int[n];
-    Arrays.fill(from, -1);
-    int[] queue = new int[n];
-    int tail = 0;
-    for (int z = 0; z < d; z++) {
-      boolean below = !planes && z > 0;
-      boolean above = !planes && z < d - 1;
-      for (int y = 0; y < h; y++) {
-        int row = w * (y + h * z);
-        for (int x = 0, p = row; x < w; x++, p++) {
-          if (source[p] != 0
-              && (x > 0 && band[p - 1]
-                  || x < w - 1 && band[p + 1]
-                  || y > 0 && band[p - w]
-                  || y < h - 1 && band[p + w]
-                  || below && band[p - plane]
-                  || above && band[p + plane])) {
-            from[p] = p;
-            queue[tail++] = p;
-          }
+  private static int[] nearest(
+      byte[] source, int[] bandVoxels, int[] rank, int w, int h, int d, boolean planes) {
+    int count = bandVoxels.length;
+    int[] around = new int[6];
+    int[] starts = new int[Math.min(source.length, 6 * count)];
+    int found = 0;
+    for (int p : bandVoxels) {
+      for (int q : neighbours(p, w, h, d, planes, around)) {
+        if (q >= 0 && source[q] != 0) {
+          starts[found++] = q;
         }
       }
     }
-    int starts = tail;
-    int[] around = new int[6];
+    Arrays.sort(starts, 0, found);
+    int[] queue = new int[found + count];
+    int tail = 0;
+    for (int i = 0; i < found; i++) {
+      if (i == 0 || starts[i] != starts[i - 1]) {
+        queue[tail++] = starts[i];
+      }
+    }
+    int[] from = new int[count];
+    Arrays.fill(from, -1);
     for (int head = 0; head < tail; head++) {
       int p = queue[head];
-      int x = p % w;
-      int y = p / w % h;
-      int z = p / plane;
-      around[0] = x > 0 ? p - 1 : -1;
-      around[1] = x < w - 1 ? p + 1 : -1;
-      around[2] = y > 0 ? p - w : -1;
-      around[3] = y < h - 1 ? p + w : -1;
-      around[4] = !planes && z > 0 ? p - plane : -1;
-      around[5] = !planes && z < d - 1 ? p + plane : -1;
-      for (int q : around) {
-        if (q >= 0 && from[q] < 0 && band[q]) {
-          from[q] = from[p];
+      int origin = rank[p] == 0 ? p : from[rank[p] - 1]; // sources lie outside the band
+      for (int q : neighbours(p, w, h, d, planes, around)) {
+        if (q >= 0 && rank[q] != 0 && from[rank[q] - 1] < 0) {
+          from[rank[q] - 1] = origin;
           queue[tail++] = q;
         }
       }
     }
-    for (int i = 0; i < starts; i++) {
-      from[queue[i]] = -1; // sources lie outside the band
-    }
     return from;
+  }
+
+  /**
+   * The axial neighbours of {@code p} (−x, +x, −y, +y, −z, +z; across planes only when {@code
+   * planes} is false) written into {@code out}, -1 where there is none.
+   */
+  private static int[] neighbours(int p, int w, int h, int d, boolean planes, int[] out) {
+    int plane = w * h;
+    int x = p % w;
+    int y = p / w % h;
+    int z = p / plane;
+    out[0] = x > 0 ? p - 1 : -1;
+    out[1] = x < w - 1 ? p + 1 : -1;
+    out[2] = y > 0 ? p - w : -1;
+    out[3] = y < h - 1 ? p + w : -1;
+    out[4] = !planes && z > 0 ? p - plane : -1;
+    out[5] = !planes && z < d - 1 ? p + plane : -1;
+    return out;
   }
 }
