@@ -32,15 +32,16 @@ import java.util.concurrent.CancellationException;
  *       sides) dilated by {@link #BAND} pixel widths in the plane and by the same physical distance
  *       along z rounded to whole planes (often none: the boundary voxels already include those with
  *       a voxel of the other class above or below; none when the planes are cut one by one). Ring:
- *       the background voxels within {@link #RING} further widths beyond the band. Interior: the
- *       foreground voxels outside the band.
+ *       the background voxels within {@link #RING} further widths beyond a gap of {@link #GAP}
+ *       widths beyond the band (the gap keeps the blurred tail of the object out of the background
+ *       level). Interior: the foreground voxels outside the band.
  *   <li>Local levels: at each interior voxel the mean of the interior voxels in a window of ±{@link
  *       #WINDOW} widths, at each ring voxel the mean of the ring voxels likewise (a normalised
  *       convolution: H. Knutsson and C.-F. Westin, "Normalized and differential convolution", CVPR
  *       1993, doi:10.1109/CVPR.1993.341081). A band voxel takes the object level of the nearest
- *       interior voxel and the background level of the nearest ring voxel, both reached through the
- *       band (breadth-first, axial steps), so each edge is judged against its own object, even
- *       where a dim and a bright object touch.
+ *       interior voxel and the background level of the nearest ring voxel, reached through the band
+ *       (and, for the ring, through the background voxels of the gap; breadth-first, axial steps),
+ *       so each edge is judged against its own object, even where a dim and a bright object touch.
  *   <li>Shared variance s², per channel: the mean squared deviation of those interior and ring
  *       voxels (the ones some band voxel takes its levels from) from their local levels. Levels are
  *       computed only there, by direct sums over their windows, so the cost follows the length of
@@ -53,9 +54,9 @@ import java.util.concurrent.CancellationException;
  *       edges stay smooth and the work stays within the band.
  * </ol>
  *
- * <p>Invariants: only band voxels can change; seeds keep their labels. Cost: O(n · (BAND + RING +
- * WINDOW)) for the band, levels and searches, plus one build and solve of the band's graph. Memory:
- * about ten arrays of n ints or floats. Stateless and thread-safe.
+ * <p>Invariants: only band voxels can change; seeds keep their labels. Cost: O(n · (BAND + GAP +
+ * RING + WINDOW)) for the band, levels and searches, plus one build and solve of the band's graph.
+ * Memory: about ten arrays of n ints or floats. Stateless and thread-safe.
  */
 final class EdgeRefinement {
   /**
@@ -67,8 +68,19 @@ final class EdgeRefinement {
    */
   static final int BAND = 1;
 
-  /** Width of the background ring beyond the band, in pixel widths (our choice, no source). */
+  /** Width of the background ring beyond the gap, in pixel widths (our choice, no source). */
   static final int RING = 3;
+
+  /**
+   * Width of the gap between the band and the background ring, in pixel widths (our choice, no
+   * source). Without it the ring began right next to the band, where the blur of the object still
+   * lifts the background, so the background level came out high and edges moved inward. Measured on
+   * the sample phantoms at four seeds each against no gap: Dice +0.001 to +0.003 on the stack
+   * (default seed 0.947 to 0.950), +0.002 to +0.012 on the nuclei, −0.001 to +0.011 on the
+   * two-channel image, within ±0.0007 on the stained section; a gap of 1 gained less, one of 3 no
+   * more.
+   */
+  static final int GAP = 2;
 
   /**
    * The shared variance is estimated from every {@value}-th voxel (in raster order) among the
@@ -104,26 +116,45 @@ final class EdgeRefinement {
     int n = mask.length;
     boolean planes = perPlane && d > 1;
     boolean[] boundary = BoundaryBand.boundary(mask, w, h, d, planes);
-    boolean[] band = dilate(boundary, w, h, d, BAND, zReach(BAND, features, planes));
-    boolean[] outer = dilate(boundary, w, h, d, BAND + RING, zReach(BAND + RING, features, planes));
+    // the three distances grow one from the other in the plane; each takes its own reach in z
+    boolean[] bandXy = BoundaryBand.grow(boundary, w, h, d, BAND, false);
+    boolean[] gapXy = BoundaryBand.grow(bandXy, w, h, d, GAP, false);
+    boolean[] outerXy = BoundaryBand.grow(gapXy, w, h, d, RING, false);
+    boolean[] band = alongZ(bandXy, w, h, d, zReach(BAND, features, planes));
+    boolean[] gap = alongZ(gapXy, w, h, d, zReach(BAND + GAP, features, planes));
+    boolean[] outer = alongZ(outerXy, w, h, d, zReach(BAND + GAP + RING, features, planes));
     byte[] inside = new byte[n];
     byte[] ring = new byte[n];
+    boolean[] corridor = new boolean[n]; // band and the background of the gap
     for (int p = 0; p < n; p++) {
-      if (!band[p]) {
-        if (mask[p] != 0) {
-          inside[p] = 1;
-        } else if (outer[p]) {
-          ring[p] = 1;
-        }
+      if (band[p]) {
+        corridor[p] = true;
+      } else if (mask[p] != 0) {
+        inside[p] = 1;
+      } else if (gap[p]) {
+        corridor[p] = true;
+      } else if (outer[p]) {
+        ring[p] = 1;
       }
     }
     int[] bandVoxels = members(band);
-    int[] rank = new int[n]; // 1 + the position in bandVoxels of a band voxel, 0 elsewhere
+    int[] corridorVoxels = members(corridor);
+    int[] rank = new int[n]; // 1 + the position in the list searched through, 0 elsewhere
+    for (int i = 0; i < corridorVoxels.length; i++) {
+      rank[corridorVoxels[i]] = i + 1;
+    }
+    int[] throughCorridor = nearest(ring, corridorVoxels, rank, w, h, d, planes);
+    int[] backgroundSource = new int[bandVoxels.length];
+    for (int i = 0; i < bandVoxels.length; i++) {
+      backgroundSource[i] = throughCorridor[rank[bandVoxels[i]] - 1];
+    }
+    for (int p : corridorVoxels) {
+      rank[p] = 0;
+    }
     for (int i = 0; i < bandVoxels.length; i++) {
       rank[bandVoxels[i]] = i + 1;
     }
     int[] objectSource = nearest(inside, bandVoxels, rank, w, h, d, planes);
-    int[] backgroundSource = nearest(ring, bandVoxels, rank, w, h, d, planes);
     Levels levels =
         Levels.measure(
             features,
@@ -289,11 +320,15 @@ final class EdgeRefinement {
    * ±{@code rz} planes: the product structuring element, so that x, y and z keep their own reach.
    */
   static boolean[] dilate(boolean[] set, int w, int h, int d, int rxy, int rz) {
-    int n = set.length;
-    boolean[] in = BoundaryBand.grow(set, w, h, d, rxy, false);
+    return alongZ(BoundaryBand.grow(set, w, h, d, rxy, false), w, h, d, rz);
+  }
+
+  /** {@code in} dilated by a segment of ±{@code rz} planes ({@code in} itself when rz is 0). */
+  private static boolean[] alongZ(boolean[] in, int w, int h, int d, int rz) {
     if (rz == 0) {
       return in;
     }
+    int n = in.length;
     boolean[] out = new boolean[n];
     int plane = w * h;
     for (int p = 0; p < n; p++) {
