@@ -50,12 +50,14 @@ final class BoundaryArcs {
    */
   static int set(GridMaxFlow solver, Raster features, EnergyParameters parameters, int budget) {
     int directions = parameters.neighborhood().size();
-    PairCapacities pairs = new PairCapacities(features, parameters, budget);
+    ArcRows rows =
+        new ArcRows(
+            new PairCapacities(features, parameters, budget), features, parameters.neighborhood());
     int[] row = new int[features.width() * directions];
     int largest = 0;
     for (int z = 0; z < features.depth(); z++) {
       for (int y = 0; y < features.height(); y++) {
-        pairs.fillRow(y, z, row);
+        rows.fill(y, z, row);
         for (int a = 0; a < row.length; a += directions) {
           int sum = 0;
           for (int k = 0; k < directions; k++) {
@@ -73,8 +75,7 @@ final class BoundaryArcs {
    * The capacities of single pairs, equal to those {@link #set} stores, for graphs over part of a
    * grid: {@code between(p, k)} is the capacity between voxel {@code p} and its neighbour in
    * direction {@code k}, which the caller guarantees to lie inside the grid. Built in O(n) (an int
-   * copy of a whole-number grey image) plus the tables; O(channels) per pair. {@link #fillRow}
-   * keeps a buffer: one instance per thread.
+   * copy of a whole-number grey image) plus the tables; O(channels) per pair. Immutable.
    */
   static final class PairCapacities {
     private final float[][] channels;
@@ -83,11 +84,6 @@ final class BoundaryArcs {
     private final double[] scales; // per direction, for the formula
     private final int[] steps; // per direction: index offset of the neighbour
     private final double inverseTwoSigmaSquared;
-    private final Neighborhood nb;
-    private final int width;
-    private final int height;
-    private final int depth;
-    private int[] line; // one direction of one row, while filling
 
     PairCapacities(Raster features, EnergyParameters parameters) {
       this(features, parameters, features.size() / 4);
@@ -95,10 +91,7 @@ final class BoundaryArcs {
 
     /** With tables allowed to cost at most {@code budget} exponentials per direction. */
     PairCapacities(Raster features, EnergyParameters parameters, int budget) {
-      nb = parameters.neighborhood();
-      width = features.width();
-      height = features.height();
-      depth = features.depth();
+      Neighborhood nb = parameters.neighborhood();
       double sigma = parameters.contrastScale();
       inverseTwoSigmaSquared = 1.0 / (2 * sigma * sigma);
       channels = new float[features.channelCount()][];
@@ -144,52 +137,31 @@ final class BoundaryArcs {
     }
 
     /**
-     * The capacities of every arc leaving row (y, z), interleaved: {@code row[x * K + k]} for the
-     * arc from x in direction k, 0 for arcs leaving the grid. Each pair is evaluated once from
-     * either end, by the same table, so both arcs of a pair get the same value.
+     * {@code out[i] = between(p, k)} for p from {@code from} to {@code to} ({@code i = p − from}),
+     * every neighbour inside the grid.
      */
-    void fillRow(int y, int z, int[] row) {
-      if (line == null || line.length < width) {
-        line = new int[width];
-      }
-      int directions = nb.size();
-      int first = width * (y + height * z);
-      for (int k = 0; k < directions; k++) {
-        int qy = y + nb.dy(k);
-        int qz = z + nb.dz(k);
-        int x0 = Math.max(0, -nb.dx(k));
-        int x1 = Math.min(width, width - nb.dx(k));
-        if (qy < 0 || qy >= height || qz < 0 || qz >= depth) {
-          x1 = x0; // the whole row's arcs in this direction leave the grid
+    void line(int k, int from, int to, int[] out) {
+      int step = steps[k];
+      Object table = tables[k];
+      if (table instanceof int[] differences) {
+        greyLine(grey, differences, from, to, step, out);
+      } else if (table instanceof ExponentialSteps s) {
+        for (int p = from; p < to; p++) {
+          double sq = ContrastScale.squaredDifference(channels, p, p + step);
+          out[p - from] = s.capacity(sq * inverseTwoSigmaSquared);
         }
-        for (int x = 0; x < x0; x++) {
-          row[x * directions + k] = 0;
-        }
-        for (int x = Math.max(x0, x1); x < width; x++) {
-          row[x * directions + k] = 0;
-        }
-        int step = steps[k];
-        Object table = tables[k];
-        int from = first + x0;
-        int to = first + x1;
-        if (table instanceof int[] differences) {
-          greyLine(grey, differences, from, to, step, line);
-        } else if (table instanceof ExponentialSteps s) {
-          for (int p = from; p < to; p++) {
-            double sq = ContrastScale.squaredDifference(channels, p, p + step);
-            line[p - from] = s.capacity(sq * inverseTwoSigmaSquared);
-          }
-        } else {
-          double scale = scales[k];
-          for (int p = from; p < to; p++) {
-            double sq = ContrastScale.squaredDifference(channels, p, p + step);
-            line[p - from] = capacity(scale, sq * inverseTwoSigmaSquared);
-          }
-        }
-        for (int x = x0, a = x0 * directions + k; x < x1; x++, a += directions) {
-          row[a] = line[x - x0];
+      } else {
+        double scale = scales[k];
+        for (int p = from; p < to; p++) {
+          double sq = ContrastScale.squaredDifference(channels, p, p + step);
+          out[p - from] = capacity(scale, sq * inverseTwoSigmaSquared);
         }
       }
+    }
+
+    /** Index offset of the neighbour in direction k. */
+    int step(int k) {
+      return steps[k];
     }
   }
 

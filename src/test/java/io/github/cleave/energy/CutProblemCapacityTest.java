@@ -25,12 +25,21 @@ class CutProblemCapacityTest {
 
   @Test
   void capacitiesEqualTheDirectFormulaOnRandomImages() {
-    SplittableRandom random = new SplittableRandom(20261203L);
-    for (int trial = 0; trial < 120; trial++) {
+    checkRandomImages(new SplittableRandom(20261203L), 120, 8, 3);
+  }
+
+  @Test
+  void capacitiesEqualTheDirectFormulaOnTinyImages() { // narrower than the neighbourhood's reach
+    checkRandomImages(new SplittableRandom(5L), 120, 1, 2);
+  }
+
+  private static void checkRandomImages(
+      SplittableRandom random, int trials, int smallest, int fewestPlanes) {
+    for (int trial = 0; trial < trials; trial++) {
       boolean volume = random.nextInt(3) == 0;
-      int w = 8 + random.nextInt(40);
-      int h = 8 + random.nextInt(30);
-      int d = volume ? 3 + random.nextInt(5) : 1;
+      int w = smallest + random.nextInt(smallest == 1 ? 5 : 40);
+      int h = smallest + random.nextInt(smallest == 1 ? 5 : 30);
+      int d = volume ? fewestPlanes + random.nextInt(5) : 1;
       Neighborhood nb =
           Neighborhood.of(volume ? VOLUME[random.nextInt(3)] : PLANE[random.nextInt(3)]);
       Raster image = randomImage(random, w, h, d, trial % 6);
