@@ -1,5 +1,7 @@
 package io.github.cleave.segment;
 
+import java.util.Arrays;
+
 /**
  * Bands around the boundary of a mask, for the steps that treat the voxels near a cut differently
  * ({@link RefinedCut}, {@link EdgeRefinement}): a boundary voxel is one with an axial neighbour of
@@ -51,6 +53,63 @@ final class BoundaryBand {
       }
     }
     return out;
+  }
+
+  /**
+   * Steps in the plane from the boundary: for every voxel within {@code limit} axial steps (x and y
+   * only) of a boundary voxel of {@link #boundary}, 1 + that number of steps (1 on the boundary
+   * voxels themselves); 0 farther away. So {@code 1 ≤ steps ≤ r + 1} is the boundary grown by r
+   * steps in the plane ({@link #grow} with {@code acrossPlanes} false), for every r ≤ limit at
+   * once. Breadth-first from the boundary voxels; O(n) plus the voxels reached.
+   *
+   * @param limit at most 126
+   */
+  static byte[] steps(byte[] mask, int w, int h, int d, boolean planes, int limit) {
+    boolean[] boundary = boundary(mask, w, h, d, planes);
+    int n = mask.length;
+    byte[] steps = new byte[n];
+    int[] front = new int[Math.max(16, n / 32)];
+    int size = 0;
+    for (int p = 0; p < n; p++) {
+      if (boundary[p]) {
+        steps[p] = 1;
+        if (size == front.length) {
+          front = Arrays.copyOf(front, 2 * size);
+        }
+        front[size++] = p;
+      }
+    }
+    int[] next = new int[front.length];
+    int plane = w * h;
+    for (int step = 1; step <= limit && size > 0; step++) {
+      int nextSize = 0;
+      byte value = (byte) (step + 1);
+      for (int i = 0; i < size; i++) {
+        int p = front[i];
+        int x = p % w;
+        int y = p % plane / w;
+        for (int j = 0; j < 4; j++) {
+          int q =
+              j == 0
+                  ? (x > 0 ? p - 1 : -1)
+                  : j == 1
+                      ? (x < w - 1 ? p + 1 : -1)
+                      : j == 2 ? (y > 0 ? p - w : -1) : (y < h - 1 ? p + w : -1);
+          if (q >= 0 && steps[q] == 0) {
+            steps[q] = value;
+            if (nextSize == next.length) {
+              next = Arrays.copyOf(next, 2 * nextSize);
+            }
+            next[nextSize++] = q;
+          }
+        }
+      }
+      int[] t = front;
+      front = next;
+      next = t.length >= front.length ? t : new int[front.length];
+      size = nextSize;
+    }
+    return steps;
   }
 
   /**

@@ -115,14 +115,12 @@ final class EdgeRefinement {
     int d = features.depth();
     int n = mask.length;
     boolean planes = perPlane && d > 1;
-    boolean[] boundary = BoundaryBand.boundary(mask, w, h, d, planes);
-    // the three distances grow one from the other in the plane; each takes its own reach in z
-    boolean[] bandXy = BoundaryBand.grow(boundary, w, h, d, BAND, false);
-    boolean[] gapXy = BoundaryBand.grow(bandXy, w, h, d, GAP, false);
-    boolean[] outerXy = BoundaryBand.grow(gapXy, w, h, d, RING, false);
-    boolean[] band = alongZ(bandXy, w, h, d, zReach(BAND, features, planes));
-    boolean[] gap = alongZ(gapXy, w, h, d, zReach(BAND + GAP, features, planes));
-    boolean[] outer = alongZ(outerXy, w, h, d, zReach(BAND + GAP + RING, features, planes));
+    // the three distances from one search in the plane; each takes its own reach in z
+    byte[] steps = BoundaryBand.steps(mask, w, h, d, planes, BAND + GAP + RING);
+    boolean[] band = within(steps, BAND, w, h, d, zReach(BAND, features, planes));
+    boolean[] gap = within(steps, BAND + GAP, w, h, d, zReach(BAND + GAP, features, planes));
+    boolean[] outer =
+        within(steps, BAND + GAP + RING, w, h, d, zReach(BAND + GAP + RING, features, planes));
     byte[] inside = new byte[n];
     byte[] ring = new byte[n];
     boolean[] corridor = new boolean[n]; // band and the background of the gap
@@ -321,6 +319,18 @@ final class EdgeRefinement {
    */
   static boolean[] dilate(boolean[] set, int w, int h, int d, int rxy, int rz) {
     return alongZ(BoundaryBand.grow(set, w, h, d, rxy, false), w, h, d, rz);
+  }
+
+  /**
+   * The voxels within {@code r} steps in the plane of the boundary ({@code 1 ≤ steps ≤ r + 1}, see
+   * {@code BoundaryBand.steps}), dilated by a segment of ±{@code rz} planes.
+   */
+  private static boolean[] within(byte[] steps, int r, int w, int h, int d, int rz) {
+    boolean[] in = new boolean[steps.length];
+    for (int p = 0; p < steps.length; p++) {
+      in[p] = steps[p] != 0 && steps[p] <= r + 1;
+    }
+    return alongZ(in, w, h, d, rz);
   }
 
   /** {@code in} dilated by a segment of ±{@code rz} planes ({@code in} itself when rz is 0). */
