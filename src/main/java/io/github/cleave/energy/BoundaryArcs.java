@@ -25,9 +25,9 @@ import java.util.Arrays;
  *
  * <p>The solver is filled row by row, every arc of a voxel together ({@code
  * GridMaxFlow.setRowNeighborCapacities}), so its arrays are written once, in order; each pair is
- * therefore evaluated from both ends, by the same table. O(n · K) table look-ups for n voxels and K
- * neighbours, plus the tables (a few thousand exponentials, shared by directions of equal weight);
- * one row of K · width ints, and an int copy of a whole-number grey image.
+ * evaluated once, its value kept until the row of its other end ({@link ArcRows}). O(n · K / 2)
+ * table look-ups for n voxels and K neighbours, plus the tables (a few thousand exponentials,
+ * shared by directions of equal weight) and the buffers of {@link ArcRows}.
  */
 final class BoundaryArcs {
   /** Whole numbers up to this magnitude are exact in float, int and double alike. */
@@ -74,12 +74,13 @@ final class BoundaryArcs {
   /**
    * The capacities of single pairs, equal to those {@link #set} stores, for graphs over part of a
    * grid: {@code between(p, k)} is the capacity between voxel {@code p} and its neighbour in
-   * direction {@code k}, which the caller guarantees to lie inside the grid. Built in O(n) (an int
-   * copy of a whole-number grey image) plus the tables; O(channels) per pair. Immutable.
+   * direction {@code k}, which the caller guarantees to lie inside the grid. Built in O(n) (a check
+   * for whole numbers) plus the tables; O(channels) per pair. Immutable.
    */
   static final class PairCapacities {
     private final float[][] channels;
-    private final int[] grey; // the one channel as ints when a table by difference applies
+    private final float[]
+        grey; // the one channel, of whole numbers, when a table by difference applies
     private final Object[] tables; // per direction: int[] by difference, steps, or null
     private final double[] scales; // per direction, for the formula
     private final int[] steps; // per direction: index offset of the neighbour
@@ -98,8 +99,7 @@ final class BoundaryArcs {
       for (int c = 0; c < channels.length; c++) {
         channels[c] = features.channel(c);
       }
-      int[] ints = channels.length == 1 ? wholeNumbers(channels[0]) : null;
-      int greyRange = ints == null ? -1 : range(ints);
+      int greyRange = channels.length == 1 ? integerRange(channels[0]) : -1;
       tables = new Object[nb.size()];
       scales = new double[nb.size()];
       steps = new int[nb.size()];
@@ -120,14 +120,14 @@ final class BoundaryArcs {
           steps[j] = nb.dx(j) + features.width() * (nb.dy(j) + features.height() * nb.dz(j));
         }
       }
-      grey = byDifference ? ints : null;
+      grey = byDifference ? channels[0] : null;
     }
 
     int between(int p, int k) {
       int q = p + steps[k];
       Object table = tables[k];
       if (table instanceof int[] differences) {
-        int d = Math.abs(grey[p] - grey[q]);
+        int d = Math.abs((int) grey[p] - (int) grey[q]);
         return d < differences.length ? differences[d] : 0;
       }
       double exponent = ContrastScale.squaredDifference(channels, p, q) * inverseTwoSigmaSquared;
@@ -175,12 +175,13 @@ final class BoundaryArcs {
   }
 
   /**
-   * {@code out[p − from] = table[|v[p] − v[p + step]|]} (0 beyond the table) for p in [from, to).
+   * {@code out[p − from] = table[|v[p] − v[p + step]|]} (0 beyond the table) for p in [from, to),
+   * on whole-number values.
    */
-  private static void greyLine(int[] v, int[] table, int from, int to, int step, int[] out) {
+  private static void greyLine(float[] v, int[] table, int from, int to, int step, int[] out) {
     int length = table.length;
     for (int p = from; p < to; p++) {
-      int diff = Math.abs(v[p] - v[p + step]);
+      int diff = Math.abs((int) v[p] - (int) v[p + step]);
       out[p - from] = diff < length ? table[diff] : 0;
     }
   }
@@ -217,30 +218,20 @@ final class BoundaryArcs {
   }
 
   /**
-   * {@code values} as ints if every value is a whole number of magnitude at most 2²⁴ (exact in
-   * float, int and double alike), else null.
+   * {@code max − min} of {@code values} if every value is a whole number of magnitude at most 2²⁴
+   * (exact in float, int and double alike), else -1.
    */
-  static int[] wholeNumbers(float[] values) {
-    int[] out = new int[values.length];
-    for (int p = 0; p < values.length; p++) {
-      float v = values[p];
+  static int integerRange(float[] values) {
+    int min = Integer.MAX_VALUE;
+    int max = Integer.MIN_VALUE;
+    for (float v : values) {
       int i = (int) v;
       if (v != i || !(Math.abs(v) <= EXACT_INTEGER)) {
-        return null; // NaN, infinite, too large, or a fraction
+        return -1; // NaN, infinite, too large, or a fraction
       }
-      out[p] = i;
+      min = Math.min(min, i);
+      max = Math.max(max, i);
     }
-    return out;
-  }
-
-  /** {@code max − min} of {@code values} (0 when empty). */
-  private static int range(int[] values) {
-    int min = values.length == 0 ? 0 : values[0];
-    int max = min;
-    for (int v : values) {
-      min = Math.min(min, v);
-      max = Math.max(max, v);
-    }
-    return max - min;
+    return values.length == 0 ? 0 : max - min;
   }
 }

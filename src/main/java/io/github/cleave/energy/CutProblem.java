@@ -54,8 +54,14 @@ public final class CutProblem {
     this.backgroundCost = backgroundCost;
     this.source = new int[seedLabels.length];
     this.sink = new int[seedLabels.length];
+    for (int p = 0; p < seedLabels.length; p++) { // what setTerminals gives, in two plain passes
+      source[p] = CapacityScale.toCapacity(backgroundCost[p]);
+      sink[p] = CapacityScale.toCapacity(foregroundCost[p]);
+    }
     for (int p = 0; p < seedLabels.length; p++) {
-      setTerminals(p);
+      if (seedLabels[p] == SeedLabels.FOREGROUND || seedLabels[p] == SeedLabels.BACKGROUND) {
+        setTerminals(p);
+      }
     }
   }
 
