@@ -150,8 +150,7 @@ public final class FixedLabelCut {
     int[] sink = new int[free];
     int[] row = new int[directions];
     for (int i = 0; i < free; i++) {
-      int p = nodes[i];
-      long[] terminals = arcs.of(p, backgroundCost[p], foregroundCost[p], row);
+      long[] terminals = arcs.of(nodes[i], backgroundCost, foregroundCost, row);
       System.arraycopy(row, 0, caps, i * directions, directions);
       source[i] = (int) Math.min(Integer.MAX_VALUE, terminals[0]);
       sink[i] = (int) Math.min(Integer.MAX_VALUE, terminals[1]);
@@ -185,7 +184,7 @@ public final class FixedLabelCut {
     long constant = 0;
     for (int i = 0; i < free; i++) {
       int p = nodes[i];
-      long[] terminals = arcs.of(p, backgroundCost[p], foregroundCost[p], row);
+      long[] terminals = arcs.of(p, backgroundCost, foregroundCost, row);
       for (int k = 0; k < directions; k++) {
         if (row[k] > 0) {
           graph.addArc(i, index[p + arcs.step[k]], row[k]);
@@ -270,12 +269,12 @@ public final class FixedLabelCut {
      * neighbour is fixed or outside the grid) and returns {source, sink} capacities of {@code p};
      * the array is reused by the next call.
      */
-    long[] of(int p, float backgroundCost, float foregroundCost, int[] row) {
+    long[] of(int p, float[] backgroundCost, float[] foregroundCost, int[] row) {
       int x = p % width;
       int y = p / width % height;
       int z = p / (width * height);
-      long toSource = CapacityScale.toCapacity(backgroundCost);
-      long toSink = CapacityScale.toCapacity(foregroundCost);
+      long toSource = CapacityScale.toCapacity(backgroundCost[p]);
+      long toSink = CapacityScale.toCapacity(foregroundCost[p]);
       for (int k = 0; k < directions; k++) {
         row[k] = 0;
         int qx = x + neighborhood.dx(k);

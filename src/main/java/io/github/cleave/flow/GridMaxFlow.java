@@ -416,17 +416,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
       for (int y = 0; y < g.height; y++) {
         int p = g.padded(0, y, z);
         for (int x = 0; x < g.width; x++, p++, node++) {
-          int cs = sourceCaps[node];
-          int ct = sinkCaps[node];
-          if ((cs | ct) < 0) {
-            checkCapacity(Math.min(cs, ct), "terminal capacity of node " + node);
-          }
-          if (capacity != null) {
-            sourceCapacity[p] = cs;
-            sinkCapacity[p] = ct;
-          } else {
-            search.changeTerminal(p, cs, ct);
-          }
+          storeTerminals(node, p, sourceCaps[node], sinkCaps[node]);
         }
       }
     }
@@ -458,20 +448,25 @@ public final class GridMaxFlow implements MaxFlowSolver {
     for (int i = 0; i < count; i++) {
       int node = nodes[i];
       layout.checkNode(node);
-      int cs = sourceCaps[i];
-      int ct = sinkCaps[i];
-      if ((cs | ct) < 0) {
-        checkCapacity(Math.min(cs, ct), "terminal capacity of node " + node);
-      }
-      int p = layout.padded(node);
-      if (capacity != null) {
-        sourceCapacity[p] = cs;
-        sinkCapacity[p] = ct;
-      } else {
-        search.changeTerminal(p, cs, ct);
-      }
+      storeTerminals(node, layout.padded(node), sourceCaps[i], sinkCaps[i]);
     }
     generation++;
+  }
+
+  /**
+   * The terminal capacities of a node (padded index p) before the first solve: stored when
+   * capacities are retained, added to the residuals otherwise.
+   */
+  private void storeTerminals(int node, int p, int cs, int ct) {
+    if ((cs | ct) < 0) {
+      checkCapacity(Math.min(cs, ct), "terminal capacity of node " + node);
+    }
+    if (capacity != null) {
+      sourceCapacity[p] = cs;
+      sinkCapacity[p] = ct;
+    } else {
+      search.changeTerminal(p, cs, ct);
+    }
   }
 
   /**

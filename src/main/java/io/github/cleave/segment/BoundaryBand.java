@@ -80,21 +80,12 @@ final class BoundaryBand {
       }
     }
     int[] next = new int[front.length];
-    int plane = w * h;
+    int[] around = new int[6];
     for (int step = 1; step <= limit && size > 0; step++) {
       int nextSize = 0;
       byte value = (byte) (step + 1);
       for (int i = 0; i < size; i++) {
-        int p = front[i];
-        int x = p % w;
-        int y = p % plane / w;
-        for (int j = 0; j < 4; j++) {
-          int q =
-              j == 0
-                  ? (x > 0 ? p - 1 : -1)
-                  : j == 1
-                      ? (x < w - 1 ? p + 1 : -1)
-                      : j == 2 ? (y > 0 ? p - w : -1) : (y < h - 1 ? p + w : -1);
+        for (int q : axialNeighbours(front[i], w, h, d, true, around)) { // in the plane only
           if (q >= 0 && steps[q] == 0) {
             steps[q] = value;
             if (nextSize == next.length) {
@@ -118,7 +109,6 @@ final class BoundaryBand {
    */
   static boolean[] grow(boolean[] set, int w, int h, int d, int steps, boolean acrossPlanes) {
     int n = set.length;
-    int plane = w * h;
     boolean[] in = set.clone();
     int[] front = new int[n];
     int size = 0;
@@ -133,16 +123,7 @@ final class BoundaryBand {
       int nextSize = 0;
       for (int i = 0; i < size; i++) {
         int p = front[i];
-        int x = p % w;
-        int y = p / w % h;
-        int z = p / plane;
-        around[0] = x > 0 ? p - 1 : -1;
-        around[1] = x < w - 1 ? p + 1 : -1;
-        around[2] = y > 0 ? p - w : -1;
-        around[3] = y < h - 1 ? p + w : -1;
-        around[4] = acrossPlanes && z > 0 ? p - plane : -1;
-        around[5] = acrossPlanes && z < d - 1 ? p + plane : -1;
-        for (int q : around) {
+        for (int q : axialNeighbours(p, w, h, d, !acrossPlanes, around)) {
           if (q >= 0 && !in[q]) {
             in[q] = true;
             next[nextSize++] = q;
@@ -155,5 +136,23 @@ final class BoundaryBand {
       size = nextSize;
     }
     return in;
+  }
+
+  /**
+   * The axial neighbours of {@code p} (−x, +x, −y, +y, −z, +z; across planes only when {@code
+   * planes} is false) written into {@code out}, -1 where there is none.
+   */
+  static int[] axialNeighbours(int p, int w, int h, int d, boolean planes, int[] out) {
+    int plane = w * h;
+    int x = p % w;
+    int y = p / w % h;
+    int z = p / plane;
+    out[0] = x > 0 ? p - 1 : -1;
+    out[1] = x < w - 1 ? p + 1 : -1;
+    out[2] = y > 0 ? p - w : -1;
+    out[3] = y < h - 1 ? p + w : -1;
+    out[4] = !planes && z > 0 ? p - plane : -1;
+    out[5] = !planes && z < d - 1 ? p + plane : -1;
+    return out;
   }
 }

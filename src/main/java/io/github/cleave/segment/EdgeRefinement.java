@@ -384,7 +384,7 @@ final class EdgeRefinement {
     int[] starts = new int[Math.min(source.length, 6 * count)];
     int found = 0;
     for (int p : bandVoxels) {
-      for (int q : neighbours(p, w, h, d, planes, around)) {
+      for (int q : BoundaryBand.axialNeighbours(p, w, h, d, planes, around)) {
         if (q >= 0 && source[q] != 0) {
           starts[found++] = q;
         }
@@ -403,7 +403,7 @@ final class EdgeRefinement {
     for (int head = 0; head < tail; head++) {
       int p = queue[head];
       int origin = rank[p] == 0 ? p : from[rank[p] - 1]; // sources lie outside the band
-      for (int q : neighbours(p, w, h, d, planes, around)) {
+      for (int q : BoundaryBand.axialNeighbours(p, w, h, d, planes, around)) {
         if (q >= 0 && rank[q] != 0 && from[rank[q] - 1] < 0) {
           from[rank[q] - 1] = origin;
           queue[tail++] = q;
@@ -411,23 +411,5 @@ final class EdgeRefinement {
       }
     }
     return from;
-  }
-
-  /**
-   * The axial neighbours of {@code p} (−x, +x, −y, +y, −z, +z; across planes only when {@code
-   * planes} is false) written into {@code out}, -1 where there is none.
-   */
-  private static int[] neighbours(int p, int w, int h, int d, boolean planes, int[] out) {
-    int plane = w * h;
-    int x = p % w;
-    int y = p / w % h;
-    int z = p / plane;
-    out[0] = x > 0 ? p - 1 : -1;
-    out[1] = x < w - 1 ? p + 1 : -1;
-    out[2] = y > 0 ? p - w : -1;
-    out[3] = y < h - 1 ? p + w : -1;
-    out[4] = !planes && z > 0 ? p - plane : -1;
-    out[5] = !planes && z < d - 1 ? p + plane : -1;
-    return out;
   }
 }
