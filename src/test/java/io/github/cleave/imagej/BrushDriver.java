@@ -16,8 +16,6 @@ import java.awt.Rectangle;
 import java.awt.Robot;
 import java.awt.Scrollbar;
 import java.awt.Toolkit;
-import java.awt.event.InputEvent;
-import java.awt.event.KeyEvent;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Properties;
@@ -27,10 +25,12 @@ import javax.imageio.ImageIO;
 /**
  * Drives the seed brush in a real ImageJ as a user would, in a child JVM of {@link
  * SeedBrushGuiTest} (so that ImageJ's static state and preferences stay out of the test JVM):
- * paints one foreground stroke and, with Alt held, one background stroke with java.awt.Robot, waits
- * for the live cut, presses "Create mask", then clicks the boundary penalty slider's track and
- * waits for the new cut; finally paints a third stroke and presses Ctrl+Z on the image window
- * (ImageJ's Edit &gt; Undo, which the brush takes over). Writes what it saw to {@code
+ * paints one foreground stroke and, with Alt held, one background stroke, waits for the live cut,
+ * presses "Create mask", then clicks the boundary penalty slider's track and waits for the new cut;
+ * finally paints a third stroke and presses Ctrl+Z on the image window (ImageJ's Edit &gt; Undo,
+ * which the brush takes over). Every mouse move, click and key press goes through the {@code
+ * xdotool} program on this JVM's display ({@link Xdo}); java.awt.Robot only takes the screenshots
+ * and waits for the event queue to drain after a window is raised. Writes what it saw to {@code
  * OUT/result.properties} and screenshots to {@code OUT}; exits 0 when the scenario ran (the test
  * judges the values).
  */
@@ -39,8 +39,17 @@ public final class BrushDriver {
 
   private BrushDriver() {}
 
-  public static void main(String[] args) throws Exception {
-    Path shots = Files.createDirectories(Path.of(args[0]));
+  public static void main(String[] args) {
+    try {
+      run(Path.of(args[0]));
+    } catch (Throwable t) {
+      t.printStackTrace();
+      Runtime.getRuntime().halt(1); // the window threads would keep the JVM alive
+    }
+  }
+
+  private static void run(Path dir) throws Exception {
+    Path shots = Files.createDirectories(dir);
     Properties result = new Properties();
     ImageJ ij = new ImageJ();
     ImagePlus imp = IJ.openImage(SAMPLES.resolve("nuclei.tif").toString());
@@ -55,15 +64,14 @@ public final class BrushDriver {
     // No window manager under Xvfb: keep ImageJ's own window clear of the panel, and raise the
     // panel before every click (a Log or Results window may open over it).
     EventQueue.invokeAndWait(() -> ij.setLocation(0, panel.getHeight() + 300));
-    Robot robot = new Robot();
-    robot.setAutoDelay(5);
+    Robot robot = new Robot(); // screenshots and waiting for the event queue only: no input
     robot.waitForIdle();
     Thread.sleep(500);
 
     StrokePlan plan = StrokePlan.of(SAMPLES.resolve("nuclei.seeds.tif"));
     EventQueue.invokeAndWait(() -> session.setSettings(session.settings().withWidth(3), false));
     drag(robot, imp, plan.foreground(), false);
-    drag(robot, imp, plan.background(), true);
+    drag(robot, imp, plan.background(), true); // Alt: the other class than the panel's
     waitFor(() -> session.strokes.strokes().size() == 2, 10_000, "two strokes");
     result.setProperty("stroke1", "" + session.strokes.strokes().get(0).label());
     result.setProperty("stroke2", "" + session.strokes.strokes().get(1).label());
@@ -125,10 +133,7 @@ public final class BrushDriver {
       EventQueue.invokeAndWait(() -> imp.getWindow().toFront());
       EventQueue.invokeAndWait(() -> imp.getCanvas().requestFocus());
       robot.waitForIdle();
-      robot.keyPress(KeyEvent.VK_CONTROL);
-      robot.keyPress(KeyEvent.VK_Z);
-      robot.keyRelease(KeyEvent.VK_Z);
-      robot.keyRelease(KeyEvent.VK_CONTROL);
+      Xdo.key("ctrl+z");
       holds(() -> session.strokes.strokes().size() != 3, 5_000);
     }
     holds(() -> overlayStrokes(imp) == 2, 5_000); // the redraw runs on the event thread
@@ -152,7 +157,10 @@ public final class BrushDriver {
             .count();
   }
 
-  private static void drag(Robot robot, ImagePlus imp, int[] run, boolean alt) {
+  /** Paints the run {x0, y, x1} of image pixels as one drag on the canvas, Alt held if asked. */
+  private static void drag(Robot robot, ImagePlus imp, int[] run, boolean alt) throws Exception {
+    EventQueue.invokeAndWait(() -> imp.getWindow().toFront());
+    robot.waitForIdle();
     ImageCanvas c = imp.getCanvas();
     Point o = c.getLocationOnScreen();
     double mag = c.getMagnification();
@@ -160,26 +168,13 @@ public final class BrushDriver {
     int y = o.y + (int) Math.round((run[1] + 0.5 - src.y) * mag);
     int x0 = o.x + (int) Math.round((run[0] + 0.5 - src.x) * mag);
     int x1 = o.x + (int) Math.round((run[2] + 0.5 - src.x) * mag);
-    robot.mouseMove(x0, y);
-    if (alt) {
-      robot.keyPress(KeyEvent.VK_ALT);
-    }
-    robot.mousePress(InputEvent.BUTTON1_DOWN_MASK);
-    for (int i = 1; i <= 10; i++) {
-      robot.mouseMove(x0 + (x1 - x0) * i / 10, y);
-    }
-    robot.mouseRelease(InputEvent.BUTTON1_DOWN_MASK);
-    if (alt) {
-      robot.keyRelease(KeyEvent.VK_ALT);
-    }
+    Xdo.drag(x0, y, x1, alt);
     robot.waitForIdle();
   }
 
   private static void click(Robot robot, Component c) {
     Point p = c.getLocationOnScreen();
-    robot.mouseMove(p.x + c.getWidth() / 2, p.y + c.getHeight() / 2);
-    robot.mousePress(InputEvent.BUTTON1_DOWN_MASK);
-    robot.mouseRelease(InputEvent.BUTTON1_DOWN_MASK);
+    Xdo.click(p.x + c.getWidth() / 2, p.y + c.getHeight() / 2);
     robot.waitForIdle();
   }
 
@@ -193,10 +188,7 @@ public final class BrushDriver {
 
   private static void clickTrackRight(Robot robot, Scrollbar s) {
     Point p = s.getLocationOnScreen();
-    robot.mouseMove(
-        p.x + s.getWidth() * 17 / 20, p.y + s.getHeight() / 2); // track, right of the thumb
-    robot.mousePress(InputEvent.BUTTON1_DOWN_MASK);
-    robot.mouseRelease(InputEvent.BUTTON1_DOWN_MASK);
+    Xdo.click(p.x + s.getWidth() * 17 / 20, p.y + s.getHeight() / 2); // track, right of the thumb
     robot.waitForIdle();
   }
 

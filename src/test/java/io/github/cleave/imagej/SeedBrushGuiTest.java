@@ -15,14 +15,15 @@ import org.junit.jupiter.api.io.TempDir;
 
 /**
  * The seed brush as a user drives it, in a real ImageJ with windows ({@link BrushDriver}, in a
- * child JVM with its own home folder): needs a display (CI runs under Xvfb); with {@code
- * CLEAVE_REQUIRE_DISPLAY=1} a missing display fails the test instead of skipping it. One foreground
- * stroke and, with Alt held, one background stroke painted with the mouse give a mask within Dice
- * 0.9 of the sample's ground truth (sample-images/README.md: nuclei.truth.tif); moving the boundary
- * penalty slider up changes the cut to a shorter boundary (a larger λ never lengthens the minimum
- * cut's boundary term; pixel-edge count used as its proxy, common practice, no source); Ctrl+Z on
- * the image undoes the last stroke and its overlay. Screenshots of the panel and the contour are
- * left in {@code target/gui/}.
+ * child JVM with its own home folder), the mouse and keys moved by the {@code xdotool} program
+ * ({@link Xdo}): needs a display (CI runs under Xvfb) and {@code xdotool} on the {@code PATH}; with
+ * {@code CLEAVE_REQUIRE_DISPLAY=1} a missing display or program fails the test instead of skipping
+ * it. One foreground stroke and, with Alt held, one background stroke dragged with the mouse give a
+ * mask within Dice 0.9 of the sample's ground truth (sample-images/README.md: nuclei.truth.tif);
+ * moving the boundary penalty slider up changes the cut to a shorter boundary (a larger λ never
+ * lengthens the minimum cut's boundary term; pixel-edge count used as its proxy, common practice,
+ * no source); Ctrl+Z on the image undoes the last stroke and its overlay. Screenshots of the panel
+ * and the contour are left in {@code target/gui/}.
  */
 class SeedBrushGuiTest {
   @Test
@@ -32,6 +33,12 @@ class SeedBrushGuiTest {
         fail("CLEAVE_REQUIRE_DISPLAY=1 but there is no display: run under xvfb-run");
       }
       Assumptions.abort("no display");
+    }
+    if (Xdo.find().isEmpty()) {
+      if ("1".equals(System.getenv("CLEAVE_REQUIRE_DISPLAY"))) {
+        fail("CLEAVE_REQUIRE_DISPLAY=1 but " + Xdo.MISSING);
+      }
+      Assumptions.abort(Xdo.MISSING);
     }
     Path out = Files.createDirectories(Path.of("target", "gui"));
     Files.deleteIfExists(out.resolve("result.properties"));
