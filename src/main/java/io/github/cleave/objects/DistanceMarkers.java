@@ -11,32 +11,33 @@ package io.github.cleave.objects;
  * grayscale reconstruction in image analysis", IEEE Trans. Image Processing 2(2):176–201, 1993: a
  * voxel popped from the queue is final, like a bottleneck-path Dijkstra search. Regional maxima are
  * then plateaus (26-connected in 3D, 8 in 2D, equal value) with no higher neighbour; their values
- * are exact copies of input values, so plateau equality is exact. O(N log N) time.
+ * are exact copies of input values, so plateau equality is exact. Works on the foreground voxels
+ * only ({@link ForegroundNeighbours}): O(F log F) time for F foreground voxels.
  */
 final class DistanceMarkers {
   private DistanceMarkers() {}
 
   /**
-   * Marker labels 1..m (0 elsewhere) for the foreground ({@code dist > 0}) of the distance map,
-   * numbered in row-major order of their first voxel.
+   * Marker labels 1..m (0 elsewhere) for the foreground voxels with {@code dist > 0}, by slot of
+   * {@code grid}, numbered in row-major order of their first voxel. The queue starts with every
+   * such voxel in slot (row-major) order, built in one pass ({@link FloodQueue#heapOf}).
    */
-  static int[] markers(float[] dist, int w, int h, int d, float tolerance) {
+  static int[] markers(float[] dist, ForegroundNeighbours grid, float tolerance) {
     int n = dist.length;
-    float[] rec = new float[n]; // reconstruction; -inf outside the foreground
+    float[] rec = new float[n]; // reconstruction; −inf where dist ≤ 0
+    int[] start = new int[n];
+    float[] startRec = new float[n];
     int foreground = 0;
-    for (float v : dist) {
-      foreground += v > 0 ? 1 : 0;
-    }
-    FloodQueue queue = new FloodQueue(foreground + foreground / 4);
     for (int i = 0; i < n; i++) {
       if (dist[i] > 0) {
         rec[i] = dist[i] - tolerance;
-        queue.push(i, rec[i]);
+        start[foreground] = i;
+        startRec[foreground++] = rec[i];
       } else {
         rec[i] = Float.NEGATIVE_INFINITY;
       }
     }
-    Grids grid = new Grids(w, h, d, true);
+    FloodQueue queue = FloodQueue.heapOf(start, startRec, foreground, foreground + foreground / 4);
     int[] nb = grid.buffer;
     while (!queue.isEmpty()) {
       float v = queue.topPriority();
@@ -59,7 +60,7 @@ final class DistanceMarkers {
     return regionalMaxima(rec, dist, grid);
   }
 
-  private static int[] regionalMaxima(float[] rec, float[] dist, Grids grid) {
+  private static int[] regionalMaxima(float[] rec, float[] dist, ForegroundNeighbours grid) {
     int n = rec.length;
     int[] labels = new int[n];
     byte[] seen = new byte[n];

@@ -43,11 +43,7 @@ public final class ObjectSplitting {
     return switch (method) { // the first two number their objects in first-voxel order
       case NONE -> ordered(w, h, d, ConnectedComponents.label(mask, w, h, d, null, 0));
       case DISTANCE_WATERSHED ->
-          ordered(
-              w,
-              h,
-              d,
-              DistanceWatershed.split(mask, w, h, d, voxelSize.x(), voxelSize.y(), voxelSize.z()));
+          DistanceWatershed.split(mask, w, h, d, voxelSize.x(), voxelSize.y(), voxelSize.z());
       case PER_STROKE -> ObjectLabels.adopt(w, h, d, perStroke(mask, w, h, d, strokes));
     };
   }

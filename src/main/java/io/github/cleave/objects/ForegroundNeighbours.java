@@ -1,0 +1,160 @@
+package io.github.cleave.objects;
+
+/**
+ * The foreground voxels of a mask, numbered 0..F−1 in row-major order ("slots", see {@link
+ * ForegroundRuns#slotStarts()}), and their foreground neighbours: 26 in a stack, 8 in a plane,
+ * listed in the order of {@link Grids#neighbours(int)} with the background left out. A flood over
+ * the foreground that works on slots thus visits voxels in the same order as one on the whole grid
+ * that skips background neighbours, while its state needs one entry per foreground voxel only.
+ *
+ * <p>Two layouts, same answers: when the foreground is sparse ({@code K·F ≤ 2·N} for K neighbours
+ * and N voxels) a table of K slots per foreground voxel (−1 for background or outside the image),
+ * built from the runs by merging each run with the runs of its K/3 neighbouring rows, so that a
+ * lookup reads K consecutive ints; otherwise a voxel → slot map of N ints and the neighbours of
+ * {@link Grids}. Building either is O(N / 8 + K·F) after the runs. Not thread-safe (one {@link
+ * #buffer}); one instance per operation.
+ */
+final class ForegroundNeighbours {
+  final ForegroundRuns runs;
+  final int[] slots; // slots[r]: the first slot of run r; slots[runs.count] = size
+  final int size; // F, the number of foreground voxels
+  final int[] buffer = new int[26]; // slots written by neighbours()
+  private final int k; // neighbours per voxel in the full neighbourhood: 26 (stack) or 8 (plane)
+  private final int[] table; // table[k·s + e]: slot of the e-th neighbour of s, −1 if none; or null
+  private final int[] slotOf; // map layout: slotOf[voxel] = slot + 1, 0 for background; or null
+  private final int[] voxel; // map layout: voxel index of each slot; or null
+  private final Grids grid; // map layout: the neighbours on the whole grid; or null
+
+  private ForegroundNeighbours(ForegroundRuns runs, int[] slots, boolean asTable) {
+    this.runs = runs;
+    this.slots = slots;
+    this.size = slots[runs.count];
+    this.k = runs.d > 1 ? 26 : 8;
+    if (asTable) {
+      table = table(runs, slots, size, k);
+      slotOf = null;
+      voxel = null;
+      grid = null;
+    } else {
+      slotOf = new int[runs.w * runs.h * runs.d];
+      voxel = new int[size];
+      for (int r = 0, s = 0; r < runs.count; r++) {
+        int base = runs.row[r] * runs.w;
+        for (int x = runs.start[r]; x <= runs.end[r]; x++, s++) {
+          slotOf[base + x] = s + 1;
+          voxel[s] = base + x;
+        }
+      }
+      grid = new Grids(runs.w, runs.h, runs.d, true);
+      table = null;
+    }
+  }
+
+  /** The neighbours of the foreground of {@code runs}, in the layout that suits its density. */
+  static ForegroundNeighbours of(ForegroundRuns runs) {
+    long n = (long) runs.w * runs.h * runs.d;
+    int[] slots = runs.slotStarts();
+    long f = slots[runs.count];
+    return new ForegroundNeighbours(runs, slots, (runs.d > 1 ? 26 : 8) * f <= 2 * n);
+  }
+
+  /** As {@link #of(ForegroundRuns)} with the layout chosen by the caller (both give one answer). */
+  static ForegroundNeighbours of(ForegroundRuns runs, boolean asTable) {
+    return new ForegroundNeighbours(runs, runs.slotStarts(), asTable);
+  }
+
+  /**
+   * Writes the foreground neighbours of slot {@code s} into {@link #buffer}, in the order of {@link
+   * Grids#neighbours(int)}, and returns their number.
+   */
+  int neighbours(int s) {
+    int m = 0;
+    if (table != null) {
+      for (int e = k * s, end = e + k; e < end; e++) {
+        int q = table[e];
+        if (q >= 0) {
+          buffer[m++] = q;
+        }
+      }
+      return m;
+    }
+    int[] nb = grid.buffer;
+    int all = grid.neighbours(voxel[s]);
+    for (int j = 0; j < all; j++) {
+      int q = slotOf[nb[j]];
+      if (q != 0) {
+        buffer[m++] = q - 1;
+      }
+    }
+    return m;
+  }
+
+  /** Writes {@code values[s]} at the voxel of every slot {@code s} of {@code into}. */
+  void scatter(int[] values, int[] into) {
+    int w = runs.w;
+    for (int r = 0, s = 0; r < runs.count; r++) {
+      int base = runs.row[r] * w;
+      for (int x = runs.start[r]; x <= runs.end[r]; x++) {
+        into[base + x] = values[s++];
+      }
+    }
+  }
+
+  /**
+   * The table layout: for each run and each neighbouring row (z, then y ascending, as in {@link
+   * Grids}), the row's runs are walked once alongside the run's voxels.
+   */
+  private static int[] table(ForegroundRuns runs, int[] slots, int size, int k) {
+    int w = runs.w;
+    int h = runs.h;
+    int d = runs.d;
+    int[] table = new int[k * size];
+    int dz0 = d > 1 ? -1 : 0;
+    int dz1 = d > 1 ? 1 : 0;
+    for (int r = 0; r < runs.count; r++) {
+      int row = runs.row[r];
+      int y = row % h;
+      int z = row / h;
+      int s0 = runs.start[r];
+      int s1 = runs.end[r];
+      int slot0 = slots[r];
+      int col = 0; // index of the (dz, dy, −1) entry in the table row of a slot
+      for (int dz = dz0; dz <= dz1; dz++) {
+        for (int dy = -1; dy <= 1; dy++) {
+          boolean centre = dz == 0 && dy == 0; // the voxel itself is not its neighbour
+          int y2 = y + dy;
+          int z2 = z + dz;
+          boolean inside = y2 >= 0 && y2 < h && z2 >= 0 && z2 < d;
+          int other = y2 + h * z2;
+          int j = inside ? runs.first[other] : 0;
+          int jEnd = inside ? runs.first[other + 1] : 0;
+          for (int x = s0, e = k * slot0 + col; x <= s1; x++, e += k) {
+            while (j < jEnd && runs.end[j] < x - 1) {
+              j++;
+            }
+            int c = e;
+            for (int dx = -1; dx <= 1; dx++) {
+              if (centre && dx == 0) {
+                continue;
+              }
+              int xx = x + dx;
+              int q = -1;
+              if (xx >= 0 && xx < w) {
+                int jj = j;
+                while (jj < jEnd && runs.end[jj] < xx) {
+                  jj++;
+                }
+                if (jj < jEnd && runs.start[jj] <= xx) {
+                  q = slots[jj] + xx - runs.start[jj];
+                }
+              }
+              table[c++] = q;
+            }
+          }
+          col += centre ? 2 : 3;
+        }
+      }
+    }
+    return table;
+  }
+}
