@@ -41,23 +41,25 @@ final class DistanceWatershed {
       }
       return ObjectLabels.ordered(w, h, d, labels, count);
     }
-    return splitStack(mask, w, h, d, sx, sy, sz);
+    return splitStack(mask, w, h, d, sx, sy, sz, null);
   }
 
   /**
    * The stack's flood, on the foreground voxels only ({@link ForegroundNeighbours}: slots in
    * row-major order, neighbours in grid order, so every queue sees the same pushes in the same
-   * order as a flood over the whole grid).
+   * order as a flood over the whole grid). {@code asTable}: the neighbour layout, null to choose by
+   * density (the labels do not depend on it).
    */
-  private static ObjectLabels splitStack(
-      byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
+  static ObjectLabels splitStack(
+      byte[] mask, int w, int h, int d, double sx, double sy, double sz, Boolean asTable) {
     ForegroundRuns runs = ForegroundRuns.of(mask, null, w, h, d);
-    ForegroundNeighbours grid = ForegroundNeighbours.of(runs);
+    ForegroundNeighbours grid =
+        asTable == null ? ForegroundNeighbours.of(runs) : ForegroundNeighbours.of(runs, asTable);
     float[] dist = DistanceMap.distance(runs, grid.slots, sx, sy, sz);
     float tolerance = (float) (0.5 * Math.min(sx, Math.min(sy, sz)));
     int[] labels = DistanceMarkers.markers(dist, grid, tolerance);
     int n = grid.size;
-    int[] nb = grid.buffer;
+    int[] nb = grid.entries;
     FloodQueue queue = new FloodQueue(n);
     boolean[] marker = new boolean[n];
     for (int i = 0; i < n; i++) {
@@ -80,10 +82,9 @@ final class DistanceWatershed {
   /** Gives {@code p}'s label to its unlabelled foreground neighbours and queues them. */
   private static void visit(
       int p, int[] labels, float[] dist, ForegroundNeighbours grid, int[] nb, FloodQueue queue) {
-    int m = grid.neighbours(p);
-    for (int j = 0; j < m; j++) {
-      int q = nb[j];
-      if (labels[q] == 0) {
+    for (int e = grid.at(p), end = e + grid.k; e < end; e++) {
+      int q = nb[e];
+      if (q >= 0 && labels[q] == 0) {
         labels[q] = labels[p];
         queue.push(q, dist[q]);
       }
@@ -102,7 +103,7 @@ final class DistanceWatershed {
     for (int l : labels) {
       max = Math.max(max, l);
     }
-    int[] nb = grid.buffer;
+    int[] nb = grid.entries;
     int[] queue = null;
     for (int s = 0; s < n; s++) {
       if (labels[s] != 0) {
@@ -113,10 +114,9 @@ final class DistanceWatershed {
       labels[s] = label;
       queue[0] = s;
       for (int head = 0, tail = 1; head < tail; head++) {
-        int m = grid.neighbours(queue[head]);
-        for (int j = 0; j < m; j++) {
-          int q = nb[j];
-          if (labels[q] == 0) {
+        for (int e = grid.at(queue[head]), end = e + grid.k; e < end; e++) {
+          int q = nb[e];
+          if (q >= 0 && labels[q] == 0) {
             labels[q] = label;
             queue[tail++] = q;
           }

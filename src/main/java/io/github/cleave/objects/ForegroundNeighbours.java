@@ -10,20 +10,19 @@ package io.github.cleave.objects;
  * <p>Two layouts, same answers: when the foreground is sparse ({@code K·F ≤ 2·N} for K neighbours
  * and N voxels) a table of K slots per foreground voxel (−1 for background or outside the image),
  * built from the runs by merging each run with the runs of its K/3 neighbouring rows, so that a
- * lookup reads K consecutive ints; otherwise a voxel → slot map of N ints and the neighbours of
- * {@link Grids}. Building either is O(N / 8 + K·F) after the runs. Not thread-safe (one {@link
- * #buffer}); one instance per operation.
+ * lookup reads K consecutive ints; otherwise a voxel → slot map of N ints from which a row of K
+ * entries is filled per lookup. Building either is O(N / 8 + K·F) after the runs. Not thread-safe
+ * (one scratch row); one instance per operation.
  */
 final class ForegroundNeighbours {
   final ForegroundRuns runs;
   final int[] slots; // slots[r]: the first slot of run r; slots[runs.count] = size
   final int size; // F, the number of foreground voxels
-  final int[] buffer = new int[26]; // slots written by neighbours()
-  private final int k; // neighbours per voxel in the full neighbourhood: 26 (stack) or 8 (plane)
+  final int k; // neighbours per voxel in the full neighbourhood: 26 (stack) or 8 (plane)
+  final int[] entries; // the table, or a scratch row of k entries (map layout); see at()
   private final int[] table; // table[k·s + e]: slot of the e-th neighbour of s, −1 if none; or null
   private final int[] slotOf; // map layout: slotOf[voxel] = slot + 1, 0 for background; or null
   private final int[] voxel; // map layout: voxel index of each slot; or null
-  private final Grids grid; // map layout: the neighbours on the whole grid; or null
 
   private ForegroundNeighbours(ForegroundRuns runs, int[] slots, boolean asTable) {
     this.runs = runs;
@@ -34,7 +33,7 @@ final class ForegroundNeighbours {
       table = table(runs, slots, size, k);
       slotOf = null;
       voxel = null;
-      grid = null;
+      entries = table;
     } else {
       slotOf = new int[runs.w * runs.h * runs.d];
       voxel = new int[size];
@@ -45,7 +44,7 @@ final class ForegroundNeighbours {
           voxel[s] = base + x;
         }
       }
-      grid = new Grids(runs.w, runs.h, runs.d, true);
+      entries = new int[k];
       table = null;
     }
   }
@@ -64,29 +63,37 @@ final class ForegroundNeighbours {
   }
 
   /**
-   * Writes the foreground neighbours of slot {@code s} into {@link #buffer}, in the order of {@link
-   * Grids#neighbours(int)}, and returns their number.
+   * The neighbours of slot {@code s}: returns {@code e} such that {@link #entries}{@code [e ..
+   * e+k)} hold the slots of its K full-neighbourhood neighbours in the order of {@link
+   * Grids#neighbours(int)}, −1 for background or outside the image. The table layout returns a
+   * place in the table; the map layout fills a scratch row, valid until the next call.
    */
-  int neighbours(int s) {
-    int m = 0;
+  int at(int s) {
     if (table != null) {
-      for (int e = k * s, end = e + k; e < end; e++) {
-        int q = table[e];
-        if (q >= 0) {
-          buffer[m++] = q;
+      return k * s;
+    }
+    int v = voxel[s];
+    int w = runs.w;
+    int h = runs.h;
+    int x = v % w;
+    int y = (v / w) % h;
+    int z = v / (w * h);
+    int e = 0;
+    for (int dz = k == 26 ? -1 : 0; dz <= (k == 26 ? 1 : 0); dz++) {
+      for (int dy = -1; dy <= 1; dy++) {
+        for (int dx = -1; dx <= 1; dx++) {
+          if (dx == 0 && dy == 0 && dz == 0) {
+            continue;
+          }
+          int xx = x + dx;
+          int yy = y + dy;
+          int zz = z + dz;
+          boolean inside = xx >= 0 && xx < w && yy >= 0 && yy < h && zz >= 0 && zz < runs.d;
+          entries[e++] = inside ? slotOf[v + dx + w * (dy + h * dz)] - 1 : -1;
         }
       }
-      return m;
     }
-    int[] nb = grid.buffer;
-    int all = grid.neighbours(voxel[s]);
-    for (int j = 0; j < all; j++) {
-      int q = slotOf[nb[j]];
-      if (q != 0) {
-        buffer[m++] = q - 1;
-      }
-    }
-    return m;
+    return 0;
   }
 
   /** Writes {@code values[s]} at the voxel of every slot {@code s} of {@code into}. */
