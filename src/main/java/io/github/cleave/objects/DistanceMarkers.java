@@ -24,8 +24,8 @@ import java.util.Arrays;
  * 1993). Regional maxima are then plateaus (same connectivity, equal value) with no higher
  * neighbour.
  *
- * <p>Works on the foreground voxels only ({@link ForegroundNeighbours}): O(F log F) time for the
- * sort of the F foreground voxels, near-linear after it; a few arrays of F entries.
+ * <p>Works on the foreground voxels only ({@link ForegroundNeighbours}): a radix sort of the F
+ * foreground voxels by distance, O(F), then near-linear union–find work; a few arrays of F entries.
  */
 final class DistanceMarkers {
   private DistanceMarkers() {}

@@ -23,8 +23,10 @@ package io.github.cleave.objects;
  * 26-neighbours, which enter a priority queue keyed by distance (highest first, FIFO among equal
  * distances); each popped voxel labels its unlabelled neighbours. A voxel takes the label of the
  * first labelled neighbour that reaches it, so the dividing surface goes to one side and no voxel
- * is lost. Deterministic; O(N) to find the foreground and write the labels, O(F log F) for the F
- * foreground voxels.
+ * is lost. Deterministic. Everything after finding the foreground runs works on the F foreground
+ * voxels only ({@link ForegroundNeighbours}), with the same pushes in the same order as a flood
+ * over the whole grid: O(N / 8) to find the runs and O(N) to write the labels, O(F log F) for the
+ * rest.
  *
  * <p>Each resulting object is connected. Stateless and thread-safe.
  */

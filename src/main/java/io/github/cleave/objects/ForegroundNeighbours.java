@@ -9,7 +9,7 @@ package io.github.cleave.objects;
  *
  * <p>Two layouts, same answers: when the foreground is sparse ({@code K·F ≤ 2·N} for K neighbours
  * and N voxels) a table of K slots per foreground voxel (−1 for background or outside the image),
- * built from the runs by merging each run with the runs of its K/3 neighbouring rows, so that a
+ * built from the runs by pairing each run with the runs of its K/3 neighbouring rows, so that a
  * lookup reads K consecutive ints; otherwise a voxel → slot map of N ints from which a row of K
  * entries is filled per lookup. Building either is O(N / 8 + K·F) after the runs. Not thread-safe
  * (one scratch row); one instance per operation.
@@ -109,7 +109,8 @@ final class ForegroundNeighbours {
 
   /**
    * The table layout: for each run and each neighbouring row (z, then y ascending, as in {@link
-   * Grids}), the row's runs are walked once alongside the run's voxels.
+   * Grids}), the entries are set to −1 and each run of that row writes its slots into the entries
+   * of the run's voxels next to it.
    */
   private static int[] table(ForegroundRuns runs, int[] slots, int size, int k) {
     int w = runs.w;
@@ -132,30 +133,31 @@ final class ForegroundNeighbours {
           int y2 = y + dy;
           int z2 = z + dz;
           boolean inside = y2 >= 0 && y2 < h && z2 >= 0 && z2 < d;
-          int other = y2 + h * z2;
-          int j = inside ? runs.first[other] : 0;
-          int jEnd = inside ? runs.first[other + 1] : 0;
           for (int x = s0, e = k * slot0 + col; x <= s1; x++, e += k) {
-            while (j < jEnd && runs.end[j] < x - 1) {
-              j++;
+            table[e] = -1;
+            table[e + 1] = -1;
+            if (!centre) {
+              table[e + 2] = -1;
             }
-            int c = e;
-            for (int dx = -1; dx <= 1; dx++) {
-              if (centre && dx == 0) {
-                continue;
-              }
-              int xx = x + dx;
-              int q = -1;
-              if (xx >= 0 && xx < w) {
-                int jj = j;
-                while (jj < jEnd && runs.end[jj] < xx) {
-                  jj++;
+          }
+          if (!inside) {
+            col += centre ? 2 : 3;
+            continue;
+          }
+          int other = y2 + h * z2;
+          for (int j = runs.first[other]; j < runs.first[other + 1]; j++) {
+            int lo = Math.max(runs.start[j], s0 - 1); // the run's voxels next to this run
+            int hi = Math.min(runs.end[j], s1 + 1);
+            for (int xx = lo; xx <= hi; xx++) {
+              int q = slots[j] + xx - runs.start[j];
+              for (int dx = -1; dx <= 1; dx++) { // xx is the (dx)-neighbour of x = xx − dx
+                int x = xx - dx;
+                if (x < s0 || x > s1 || (centre && dx == 0)) {
+                  continue;
                 }
-                if (jj < jEnd && runs.start[jj] <= xx) {
-                  q = slots[jj] + xx - runs.start[jj];
-                }
+                int entry = centre && dx == 1 ? 1 : dx + 1; // the centre row has no dx = 0 entry
+                table[k * (slot0 + x - s0) + col + entry] = q;
               }
-              table[c++] = q;
             }
           }
           col += centre ? 2 : 3;
