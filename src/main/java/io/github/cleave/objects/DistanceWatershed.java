@@ -23,7 +23,10 @@ package io.github.cleave.objects;
  * 26-neighbours, which enter a priority queue keyed by distance (highest first, FIFO among equal
  * distances); each popped voxel labels its unlabelled neighbours. A voxel takes the label of the
  * first labelled neighbour that reaches it, so the dividing surface goes to one side and no voxel
- * is lost. Deterministic; O(N log N).
+ * is lost. Deterministic. Everything after finding the foreground runs works on the F foreground
+ * voxels only ({@link ForegroundNeighbours}), with the same pushes in the same order as a flood
+ * over the whole grid: O(N / 8) to find the runs and O(N) to write the labels, O(F log F) for the
+ * rest.
  *
  * <p>Each resulting object is connected. Stateless and thread-safe.
  */
@@ -31,49 +34,106 @@ final class DistanceWatershed {
   private DistanceWatershed() {}
 
   /** Object labels covering the whole mask, numbered in first-voxel order. */
-  static int[] split(byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
+  static ObjectLabels split(byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
     if (d == 1) {
-      return PlaneWatershed.split(mask, w, h);
+      int[] labels = PlaneWatershed.split(mask, w, h);
+      int count = 0;
+      for (int l : labels) {
+        count = Math.max(count, l);
+      }
+      return ObjectLabels.ordered(w, h, d, labels, count);
     }
-    int[] labels = splitStack(mask, w, h, d, sx, sy, sz);
-    ObjectLabels.adopt(w, h, d, labels);
-    return labels;
+    return splitStack(mask, w, h, d, sx, sy, sz, null);
   }
 
-  private static int[] splitStack(
-      byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
-    float[] dist = DistanceMap.distance(mask, w, h, d, sx, sy, sz);
+  /**
+   * The stack's flood, on the foreground voxels only ({@link ForegroundNeighbours}: slots in
+   * row-major order, neighbours in grid order, so every queue sees the same pushes in the same
+   * order as a flood over the whole grid). {@code asTable}: the neighbour layout, null to choose by
+   * density (the labels do not depend on it).
+   */
+  static ObjectLabels splitStack(
+      byte[] mask, int w, int h, int d, double sx, double sy, double sz, Boolean asTable) {
+    ForegroundRuns runs = ForegroundRuns.of(mask, null, w, h, d);
+    ForegroundNeighbours grid =
+        asTable == null ? ForegroundNeighbours.of(runs) : ForegroundNeighbours.of(runs, asTable);
+    float[] dist = DistanceMap.distance(runs, grid.slots, sx, sy, sz);
     float tolerance = (float) (0.5 * Math.min(sx, Math.min(sy, sz)));
-    int[] labels = DistanceMarkers.markers(dist, w, h, d, tolerance);
-    Grids grid = new Grids(w, h, d, true);
-    int[] nb = grid.buffer;
-    FloodQueue queue = new FloodQueue();
-    int n = mask.length;
+    int[] labels = DistanceMarkers.markers(dist, grid, tolerance);
+    int n = grid.size;
+    int[] nb = grid.entries;
+    FloodQueue queue = new FloodQueue(n);
     boolean[] marker = new boolean[n];
     for (int i = 0; i < n; i++) {
       marker[i] = labels[i] != 0;
     }
     for (int p = 0; p < n; p++) {
       if (marker[p]) {
-        visit(p, labels, dist, mask, grid, nb, queue);
+        visit(p, labels, dist, grid, nb, queue);
       }
     }
     while (!queue.isEmpty()) {
-      visit(queue.pop(), labels, dist, mask, grid, nb, queue);
+      visit(queue.pop(), labels, dist, grid, nb, queue);
     }
-    return SeededGrowth.grow(mask, w, h, d, labels); // components without a marker, if any
+    int count = unmarked(labels, grid);
+    int[] out = new int[mask.length];
+    grid.scatter(labels, out);
+    return ObjectLabels.ordered(w, h, d, out, count);
   }
 
   /** Gives {@code p}'s label to its unlabelled foreground neighbours and queues them. */
   private static void visit(
-      int p, int[] labels, float[] dist, byte[] mask, Grids grid, int[] nb, FloodQueue queue) {
-    int m = grid.neighbours(p);
-    for (int j = 0; j < m; j++) {
-      int q = nb[j];
-      if (mask[q] != 0 && labels[q] == 0) {
+      int p, int[] labels, float[] dist, ForegroundNeighbours grid, int[] nb, FloodQueue queue) {
+    for (int e = grid.at(p), end = e + grid.k; e < end; e++) {
+      int q = nb[e];
+      if (q >= 0 && labels[q] == 0) {
         labels[q] = labels[p];
         queue.push(q, dist[q]);
       }
     }
+  }
+
+  /**
+   * Labels the components the flood did not reach (those without a marker, possible only where
+   * distances underflow to 0) as {@link SeededGrowth} does: they get the next numbers in order of
+   * their first voxel (the flood already reached everything connected to a label). Then renumbers
+   * all labels in first-voxel (slot) order and returns their count.
+   */
+  private static int unmarked(int[] labels, ForegroundNeighbours grid) {
+    int n = labels.length;
+    int max = 0;
+    for (int l : labels) {
+      max = Math.max(max, l);
+    }
+    int[] nb = grid.entries;
+    int[] queue = null;
+    for (int s = 0; s < n; s++) {
+      if (labels[s] != 0) {
+        continue;
+      }
+      queue = queue != null ? queue : new int[n];
+      int label = ++max;
+      labels[s] = label;
+      queue[0] = s;
+      for (int head = 0, tail = 1; head < tail; head++) {
+        for (int e = grid.at(queue[head]), end = e + grid.k; e < end; e++) {
+          int q = nb[e];
+          if (q >= 0 && labels[q] == 0) {
+            labels[q] = label;
+            queue[tail++] = q;
+          }
+        }
+      }
+    }
+    int[] map = new int[max + 1];
+    int next = 0;
+    for (int s = 0; s < n; s++) {
+      int old = labels[s];
+      if (map[old] == 0) {
+        map[old] = ++next;
+      }
+      labels[s] = map[old];
+    }
+    return next;
   }
 }

@@ -4,92 +4,100 @@ import java.util.Arrays;
 
 /**
  * A binary max-heap of voxel indices keyed by a {@code float} priority, ties broken by insertion
- * order (first in, first out), so that floods are deterministic. Primitive arrays, grows by
- * doubling; push and pop O(log size).
+ * order (first in, first out), so that floods are deterministic. Each entry is one {@code long}:
+ * the priority's bits, turned so that signed order follows float order ({@code −0} counted as
+ * {@code +0}, NaN not allowed), above the complement of the insertion number; larger keys come
+ * first, and no two keys are equal. The voxel is looked up by insertion number, so a queue takes at
+ * most {@link #MAX_PUSHES} pushes in all; push and pop O(log size), grows by doubling.
  */
 final class FloodQueue {
-  private float[] priority;
-  private long[] order; // insertion number, for FIFO among equal priorities
-  private int[] node;
+  static final int MAX_PUSHES = Integer.MAX_VALUE - 8; // the largest array Java allocates
+  private static final long LOW = 0xFFFF_FFFFL;
+  private long[] heap; // heap[0..size): keys, heap order (a parent's key exceeds its children's)
+  private int[] voxel; // voxel[i]: the voxel of the i-th push
   private int size;
-  private long pushed;
+  private long pushed; // insertion numbers used so far
 
   FloodQueue() {
     this(64);
   }
 
-  /** A queue with room for {@code capacity} entries before it grows. */
+  /** A queue with room for {@code capacity} pushes before it grows. */
   FloodQueue(int capacity) {
     int c = Math.max(1, capacity);
-    priority = new float[c];
-    order = new long[c];
-    node = new int[c];
+    heap = new long[c];
+    voxel = new int[c];
   }
 
   boolean isEmpty() {
     return size == 0;
   }
 
-  void push(int voxel, float p) {
-    if (size == node.length) {
-      int cap = size * 2;
-      priority = Arrays.copyOf(priority, cap);
-      order = Arrays.copyOf(order, cap);
-      node = Arrays.copyOf(node, cap);
+  void push(int v, float p) {
+    if (pushed == voxel.length) {
+      if (pushed == MAX_PUSHES) {
+        throw new IllegalStateException("flood queue: more than " + MAX_PUSHES + " pushes");
+      }
+      voxel = Arrays.copyOf(voxel, (int) Math.min(MAX_PUSHES, 2L * pushed));
     }
+    if (size == heap.length) {
+      heap = Arrays.copyOf(heap, (int) Math.min(MAX_PUSHES, 2L * size));
+    }
+    voxel[(int) pushed] = v;
+    long key = ((long) sortable(p) << 32) | (LOW - pushed++);
     int i = size++;
-    long o = pushed++;
     while (i > 0) {
       int parent = (i - 1) >>> 1;
-      if (!before(p, o, priority[parent], order[parent])) {
+      if (heap[parent] >= key) {
         break;
       }
-      set(i, priority[parent], order[parent], node[parent]);
+      heap[i] = heap[parent];
       i = parent;
     }
-    set(i, p, o, voxel);
+    heap[i] = key;
   }
 
-  /** Priority of the top element. */
+  /** Priority of the top element ({@code +0} for a pushed {@code −0}). */
   float topPriority() {
-    return priority[0];
+    return Float.intBitsToFloat(flip((int) (heap[0] >> 32)));
   }
 
   /** Removes and returns the voxel with the highest priority (earliest pushed among equals). */
   int pop() {
-    int top = node[0];
+    long top = heap[0];
     size--;
     if (size > 0) {
-      float p = priority[size];
-      long o = order[size];
-      int v = node[size];
+      long key = heap[size];
       int i = 0;
       while (true) {
         int c = 2 * i + 1;
         if (c >= size) {
           break;
         }
-        if (c + 1 < size && before(priority[c + 1], order[c + 1], priority[c], order[c])) {
+        if (c + 1 < size && heap[c + 1] > heap[c]) {
           c++;
         }
-        if (!before(priority[c], order[c], p, o)) {
+        if (heap[c] <= key) {
           break;
         }
-        set(i, priority[c], order[c], node[c]);
+        heap[i] = heap[c];
         i = c;
       }
-      set(i, p, o, v);
+      heap[i] = key;
     }
-    return top;
+    return voxel[(int) (LOW - (top & LOW))];
   }
 
-  private static boolean before(float pa, long oa, float pb, long ob) {
-    return pa > pb || (pa == pb && oa < ob);
+  /**
+   * Float bits as an int whose signed order is the float order: non-negative floats keep their
+   * bits, negative ones have all but the sign bit flipped; the map is its own inverse.
+   */
+  private static int sortable(float p) {
+    assert !Float.isNaN(p);
+    return flip(Float.floatToRawIntBits(p + 0.0f)); // −0 + 0 = +0
   }
 
-  private void set(int i, float p, long o, int v) {
-    priority[i] = p;
-    order[i] = o;
-    node[i] = v;
+  private static int flip(int bits) {
+    return bits >= 0 ? bits : bits ^ 0x7FFF_FFFF;
   }
 }

@@ -174,6 +174,18 @@ final class ForegroundRuns {
     }
   }
 
+  /**
+   * Numbers the voxels of the runs 0..F−1 in row-major order ("slots"): run {@code r} holds slots
+   * {@code slots[r] .. slots[r+1]−1}; {@code slots[count] = F}.
+   */
+  int[] slotStarts() {
+    int[] slots = new int[count + 1];
+    for (int i = 0; i < count; i++) {
+      slots[i + 1] = slots[i] + end[i] - start[i] + 1;
+    }
+    return slots;
+  }
+
   /** Voxels per component, indexed 1..components. */
   long[] sizes() {
     long[] s = new long[components + 1];

@@ -17,7 +17,8 @@ import io.github.cleave.image.VoxelSize;
  *       distance (Felzenszwalb and Huttenlocher, Theory of Computing 8, 2012), markers = maxima of
  *       the h-maxima transform with h = half the finest voxel side, then a priority-queue flood in
  *       decreasing distance (FIFO among equal distances) in which each voxel joins the first
- *       labelled neighbour that reaches it, so dividing surfaces go to one side. O(N log N).
+ *       labelled neighbour that reaches it, so dividing surfaces go to one side. O(N) to find the
+ *       foreground and write the labels, O(F log F) for F foreground voxels.
  *   <li>{@link ObjectSplit#PER_STROKE}: the stroke voxels inside the mask are grouped into
  *       connected pieces (same connectivity), each piece seeds one object, and every mask voxel is
  *       given to the nearest piece in its own mask component by a multi-source breadth-first search
@@ -43,11 +44,7 @@ public final class ObjectSplitting {
     return switch (method) { // the first two number their objects in first-voxel order
       case NONE -> ordered(w, h, d, ConnectedComponents.label(mask, w, h, d, null, 0));
       case DISTANCE_WATERSHED ->
-          ordered(
-              w,
-              h,
-              d,
-              DistanceWatershed.split(mask, w, h, d, voxelSize.x(), voxelSize.y(), voxelSize.z()));
+          DistanceWatershed.split(mask, w, h, d, voxelSize.x(), voxelSize.y(), voxelSize.z());
       case PER_STROKE -> ObjectLabels.adopt(w, h, d, perStroke(mask, w, h, d, strokes));
     };
   }

@@ -8,6 +8,20 @@ import org.junit.jupiter.api.Test;
 
 class DistanceMapTest {
 
+  /** The distance map in whole-grid layout, 0 on the background. */
+  static float[] wholeGrid(byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
+    ForegroundRuns runs = ForegroundRuns.of(mask, null, w, h, d);
+    int[] slots = runs.slotStarts();
+    float[] bySlot = DistanceMap.distance(runs, slots, sx, sy, sz);
+    float[] out = new float[mask.length];
+    for (int r = 0, s = 0; r < runs.count; r++) {
+      for (int x = runs.start[r]; x <= runs.end[r]; x++) {
+        out[runs.row[r] * w + x] = bySlot[s++];
+      }
+    }
+    return out;
+  }
+
   /** Brute force: the Euclidean distance to every background voxel, minimum taken. */
   @Test
   void matchesBruteForceWithAnisotropicSpacing() {
@@ -20,7 +34,7 @@ class DistanceMapTest {
       double sy = rnd.nextDouble(0.2, 3);
       double sz = rnd.nextDouble(0.2, 3);
       byte[] mask = Phantoms.noise(rnd, w * h * d, rnd.nextDouble(0.5, 1.0));
-      float[] dist = DistanceMap.distance(mask, w, h, d, sx, sy, sz);
+      float[] dist = wholeGrid(mask, w, h, d, sx, sy, sz);
       for (int i = 0; i < mask.length; i++) {
         double best = Double.POSITIVE_INFINITY;
         if (mask[i] == 0) {

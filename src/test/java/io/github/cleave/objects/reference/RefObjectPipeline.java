@@ -39,6 +39,19 @@ public final class RefObjectPipeline {
         settings.excludeEdgePlanes());
   }
 
+  /**
+   * The distance map (0 on the background) {@code DistanceMap.distance} gave, whole-grid layout.
+   */
+  public static float[] distance(
+      byte[] mask, int w, int h, int d, double sx, double sy, double sz) {
+    return RefDistanceMap.distance(mask, w, h, d, sx, sy, sz);
+  }
+
+  /** The marker labels {@code DistanceMarkers.markers} gave, whole-grid layout. */
+  public static int[] markers(float[] dist, int w, int h, int d, float tolerance) {
+    return RefDistanceMarkers.markers(dist, w, h, d, tolerance);
+  }
+
   /** The mask {@code HoleFilling.fill} gave. */
   public static byte[] fillHoles(byte[] mask, int w, int h, int d) {
     return RefHoleFilling.fill(mask, w, h, d);
