@@ -1,6 +1,7 @@
 package io.github.cleave.batch;
 
 import io.github.cleave.render.ContactSheet;
+import io.github.cleave.render.OverlayPicture;
 import java.awt.Graphics2D;
 import java.awt.RenderingHints;
 import java.awt.image.BufferedImage;
@@ -22,8 +23,10 @@ final class Thumbnails {
   static BufferedImage of(BufferedImage picture) {
     int w = picture.getWidth();
     int h = picture.getHeight();
-    BufferedImage rgb = new BufferedImage(w, h, BufferedImage.TYPE_INT_RGB);
-    rgb.setRGB(0, 0, w, h, picture.getRGB(0, 0, w, h, null, 0, w), 0, w);
+    BufferedImage rgb =
+        picture.getType() == BufferedImage.TYPE_INT_RGB
+            ? picture
+            : OverlayPicture.intRgb(picture.getRGB(0, 0, w, h, null, 0, w), w, h);
     double scale =
         Math.min((double) ContactSheet.THUMBNAIL / w, (double) ContactSheet.THUMBNAIL / h);
     int tw = Math.max(1, (int) Math.round(w * scale));

@@ -3,6 +3,7 @@ package io.github.cleave.render;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import java.awt.image.BufferedImage;
+import java.awt.image.DataBufferInt;
 import java.util.Locale;
 
 /**
@@ -129,8 +130,20 @@ public final class OverlayPicture {
         }
       }
     }
+    return intRgb(rgb, w, h);
+  }
+
+  /**
+   * A {@code TYPE_INT_RGB} picture of the 0xRRGGBB values {@code rgb} (any alpha byte dropped, as
+   * {@link BufferedImage#setRGB} drops it for this type), written straight into its pixel array
+   * instead of converting pixel by pixel through the colour model.
+   */
+  public static BufferedImage intRgb(int[] rgb, int w, int h) {
     BufferedImage picture = new BufferedImage(w, h, BufferedImage.TYPE_INT_RGB);
-    picture.setRGB(0, 0, w, h, rgb, 0, w);
+    int[] data = ((DataBufferInt) picture.getRaster().getDataBuffer()).getData();
+    for (int i = 0; i < data.length; i++) {
+      data[i] = rgb[i] & 0xFFFFFF;
+    }
     return picture;
   }
 

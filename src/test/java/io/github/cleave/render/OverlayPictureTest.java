@@ -139,4 +139,23 @@ class OverlayPictureTest {
     }
     return false;
   }
+
+  @Test
+  void directPixelsEqualTheColourModelsConversion() {
+    // BufferedImage.setRGB through the TYPE_INT_RGB colour model (Java SE API) is the reference
+    SplittableRandom random = new SplittableRandom(20261202L);
+    for (int trial = 0; trial < 20; trial++) {
+      int w = 1 + random.nextInt(40);
+      int h = 1 + random.nextInt(40);
+      int[] argb = new int[w * h];
+      for (int i = 0; i < argb.length; i++) {
+        argb[i] = random.nextInt();
+      }
+      BufferedImage reference = new BufferedImage(w, h, BufferedImage.TYPE_INT_RGB);
+      reference.setRGB(0, 0, w, h, argb, 0, w);
+      BufferedImage direct = OverlayPicture.intRgb(argb, w, h);
+      assertThat(direct.getRGB(0, 0, w, h, null, 0, w))
+          .isEqualTo(reference.getRGB(0, 0, w, h, null, 0, w));
+    }
+  }
 }
