@@ -130,14 +130,26 @@ public final class HistogramModel implements LikelihoodModel {
   static HistogramModel learn(
       float[] values, byte[] labels, int classes, double low, double high, int bins) {
     double scale = bins / (high - low);
-    double[][] counts = new double[classes][bins];
+    // Four partial counts per class, taken in turn, so that runs of equal bins (common: the
+    // background is flat) do not make every increment wait for the one before.
+    int[][] partial = new int[classes][4 * bins];
     for (int i = 0; i < values.length; i++) {
       int label = labels[i] & 0xff;
       float v = values[i];
       if (label == 0 || label > classes || !Float.isFinite(v)) {
         continue;
       }
-      counts[label - 1][bin(v, low, scale, bins)]++;
+      partial[label - 1][(i & 3) * bins + bin(v, low, scale, bins)]++;
+    }
+    double[][] counts = new double[classes][bins];
+    for (int c = 0; c < classes; c++) {
+      for (int b = 0; b < bins; b++) {
+        counts[c][b] =
+            (double) partial[c][b]
+                + partial[c][bins + b]
+                + partial[c][2 * bins + b]
+                + partial[c][3 * bins + b];
+      }
     }
     double[][] p = new double[classes][];
     for (int c = 0; c < classes; c++) {
