@@ -6,7 +6,6 @@ import io.github.cleave.flow.MaxFlowResult;
 import io.github.cleave.flow.SolveStatus;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
-import java.util.Arrays;
 import java.util.concurrent.CancellationException;
 
 /**
@@ -135,13 +134,13 @@ final class EdgeRefinement {
         ring[p] = 1;
       }
     }
-    int[] bandVoxels = members(band);
-    int[] corridorVoxels = members(corridor);
+    int[] bandVoxels = NearestSource.members(band);
+    int[] corridorVoxels = NearestSource.members(corridor);
     int[] rank = new int[n]; // 1 + the position in the list searched through, 0 elsewhere
     for (int i = 0; i < corridorVoxels.length; i++) {
       rank[corridorVoxels[i]] = i + 1;
     }
-    int[] throughCorridor = nearest(ring, corridorVoxels, rank, w, h, d, planes);
+    int[] throughCorridor = NearestSource.search(ring, corridorVoxels, rank, w, h, d, planes);
     int[] backgroundSource = new int[bandVoxels.length];
     for (int i = 0; i < bandVoxels.length; i++) {
       backgroundSource[i] = throughCorridor[rank[bandVoxels[i]] - 1];
@@ -152,7 +151,7 @@ final class EdgeRefinement {
     for (int i = 0; i < bandVoxels.length; i++) {
       rank[bandVoxels[i]] = i + 1;
     }
-    int[] objectSource = nearest(inside, bandVoxels, rank, w, h, d, planes);
+    int[] objectSource = NearestSource.search(inside, bandVoxels, rank, w, h, d, planes);
     Levels levels =
         Levels.measure(
             features,
@@ -350,66 +349,5 @@ final class EdgeRefinement {
       }
     }
     return out;
-  }
-
-  /** The indices of the true entries of {@code set}, ascending. */
-  private static int[] members(boolean[] set) {
-    int count = 0;
-    for (boolean b : set) {
-      if (b) {
-        count++;
-      }
-    }
-    int[] out = new int[count];
-    for (int p = 0, i = 0; i < count; p++) {
-      if (set[p]) {
-        out[i++] = p;
-      }
-    }
-    return out;
-  }
-
-  /**
-   * For the i-th voxel of {@code bandVoxels}, the nearest voxel with a nonzero {@code source} value
-   * reached through the band (breadth-first, axial steps, ties to the one reached first), or -1.
-   * The search starts from the source voxels next to the band, in raster order (the others could
-   * reach the band only through these), so its cost follows the size of the band, not of the image.
-   *
-   * @param rank 1 + the position in {@code bandVoxels} of each band voxel, 0 elsewhere
-   */
-  private static int[] nearest(
-      byte[] source, int[] bandVoxels, int[] rank, int w, int h, int d, boolean planes) {
-    int count = bandVoxels.length;
-    int[] around = new int[6];
-    int[] starts = new int[Math.min(source.length, 6 * count)];
-    int found = 0;
-    for (int p : bandVoxels) {
-      for (int q : BoundaryBand.axialNeighbours(p, w, h, d, planes, around)) {
-        if (q >= 0 && source[q] != 0) {
-          starts[found++] = q;
-        }
-      }
-    }
-    Arrays.sort(starts, 0, found);
-    int[] queue = new int[found + count];
-    int tail = 0;
-    for (int i = 0; i < found; i++) {
-      if (i == 0 || starts[i] != starts[i - 1]) {
-        queue[tail++] = starts[i];
-      }
-    }
-    int[] from = new int[count];
-    Arrays.fill(from, -1);
-    for (int head = 0; head < tail; head++) {
-      int p = queue[head];
-      int origin = rank[p] == 0 ? p : from[rank[p] - 1]; // sources lie outside the band
-      for (int q : BoundaryBand.axialNeighbours(p, w, h, d, planes, around)) {
-        if (q >= 0 && rank[q] != 0 && from[rank[q] - 1] < 0) {
-          from[rank[q] - 1] = origin;
-          queue[tail++] = q;
-        }
-      }
-    }
-    return from;
   }
 }
