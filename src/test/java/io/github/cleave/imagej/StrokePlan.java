@@ -3,6 +3,7 @@ package io.github.cleave.imagej;
 import ij.IJ;
 import ij.ImagePlus;
 import java.nio.file.Path;
+import java.util.ArrayDeque;
 import java.util.Arrays;
 
 /**
@@ -128,7 +129,7 @@ record StrokePlan(Polyline foreground, Polyline background) {
     }
     double ux = (line.xs[n - 1] - line.xs[0]) / len;
     double uy = (line.ys[n - 1] - line.ys[0]) / len;
-    java.util.ArrayDeque<int[]> points = new java.util.ArrayDeque<>();
+    ArrayDeque<int[]> points = new ArrayDeque<>();
     for (int i = 0; i < n; i++) {
       points.add(new int[] {line.xs[i], line.ys[i]});
     }
