@@ -63,13 +63,12 @@ public final class BrushDriver {
     new CommandGate().run("SeedBrushCommand");
     BrushSession session = SeedBrushTool.get().session(imp);
     BrushPanel panel = panel();
-    EventQueue.invokeAndWait(() -> panel.setLocation(0, 0));
-    EventQueue.invokeAndWait(() -> imp.getWindow().setLocation(panel.getWidth() + 10, 0));
+    Robot robot = new Robot(); // screenshots and waiting for the event queue only: no input
     // No window manager under Xvfb: keep ImageJ's own window clear of the panel, and raise the
     // panel before every click (a Log or Results window may open over it).
-    EventQueue.invokeAndWait(() -> ij.setLocation(0, panel.getHeight() + 300));
-    Robot robot = new Robot(); // screenshots and waiting for the event queue only: no input
-    robot.waitForIdle();
+    place(robot, panel, 0, 0);
+    place(robot, imp.getWindow(), panel.getWidth() + 10, 0);
+    place(robot, ij, 0, panel.getHeight() + 300);
     Thread.sleep(500);
 
     StrokePlan plan =
@@ -117,7 +116,18 @@ public final class BrushDriver {
     Button create = button(panel, "Create mask");
     for (int attempt = 0; WindowManager.getImage("nuclei.mask") == null; attempt++) {
       if (attempt == 3) {
-        throw new AssertionError("timed out waiting for mask window after three clicks");
+        save(robot, shots.resolve("brush-no-mask.png"));
+        StringBuilder frames = new StringBuilder();
+        for (Frame f : Frame.getFrames()) {
+          frames.append(f.isShowing() ? " [" + f.getTitle() + " at " + f.getBounds() + "]" : "");
+        }
+        throw new AssertionError(
+            "timed out waiting for mask window after three clicks on "
+                + create.getLocationOnScreen()
+                + "; status: "
+                + panel.statusText()
+                + "; windows:"
+                + frames);
       }
       clickOnTop(robot, panel, create);
       holds(() -> WindowManager.getImage("nuclei.mask") != null, 60_000);
@@ -235,6 +245,24 @@ public final class BrushDriver {
       }
     }
     throw new AssertionError("no text field after the label " + label);
+  }
+
+  /**
+   * Moves a top-level window to ({@code x}, {@code y}) on the screen and waits until the display
+   * has it there: a move right after the window was shown can be lost (no window manager).
+   */
+  private static void place(Robot robot, java.awt.Window w, int x, int y) throws Exception {
+    for (int attempt = 0; attempt < 20; attempt++) {
+      EventQueue.invokeAndWait(() -> w.setLocation(x, y));
+      robot.waitForIdle();
+      Thread.sleep(100);
+      Point at = w.getLocationOnScreen();
+      if (at.x == x && at.y == y) {
+        return;
+      }
+    }
+    throw new AssertionError(
+        "window " + w.getName() + " stays at " + w.getLocationOnScreen() + ", not " + x + "," + y);
   }
 
   private static void click(Robot robot, Component c) {
