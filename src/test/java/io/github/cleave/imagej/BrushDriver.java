@@ -11,28 +11,32 @@ import java.awt.Component;
 import java.awt.Container;
 import java.awt.EventQueue;
 import java.awt.Frame;
+import java.awt.Label;
 import java.awt.Point;
 import java.awt.Rectangle;
 import java.awt.Robot;
 import java.awt.Scrollbar;
+import java.awt.TextField;
 import java.awt.Toolkit;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Locale;
 import java.util.Properties;
 import java.util.function.BooleanSupplier;
 import javax.imageio.ImageIO;
 
 /**
  * Drives the seed brush in a real ImageJ as a user would, in a child JVM of {@link
- * SeedBrushGuiTest} (so that ImageJ's static state and preferences stay out of the test JVM):
- * paints one foreground stroke and, with Alt held, one background stroke, waits for the live cut,
- * presses "Create mask", then clicks the boundary penalty slider's track and waits for the new cut;
- * finally paints a third stroke and presses Ctrl+Z on the image window (ImageJ's Edit &gt; Undo,
- * which the brush takes over). Every mouse move, click and key press goes through the {@code
- * xdotool} program on this JVM's display ({@link Xdo}); java.awt.Robot only takes the screenshots
- * and waits for the event queue to drain after a window is raised. Writes what it saw to {@code
- * OUT/result.properties} and screenshots to {@code OUT}; exits 0 when the scenario ran (the test
- * judges the values).
+ * SeedBrushGuiTest} (so that ImageJ's static state and preferences stay out of the test JVM): types
+ * the brush width into the panel's field, paints one foreground stroke and, with Alt held, one
+ * background stroke along the sample's own seed strokes ({@link StrokePlan}; their planned and
+ * painted lengths go to standard output), waits for the live cut, presses "Create mask", then
+ * clicks the boundary penalty slider's track and waits for the new cut; finally paints a third
+ * stroke and presses Ctrl+Z on the image window (ImageJ's Edit &gt; Undo, which the brush takes
+ * over). Every mouse move, click and key press goes through the {@code xdotool} program on this
+ * JVM's display ({@link Xdo}); java.awt.Robot only takes the screenshots and waits for the event
+ * queue to drain after a window is raised. Writes what it saw to {@code OUT/result.properties} and
+ * screenshots to {@code OUT}; exits 0 when the scenario ran (the test judges the values).
  */
 public final class BrushDriver {
   static final Path SAMPLES = Path.of("sample-images");
@@ -59,22 +63,48 @@ public final class BrushDriver {
     new CommandGate().run("SeedBrushCommand");
     BrushSession session = SeedBrushTool.get().session(imp);
     BrushPanel panel = panel();
-    EventQueue.invokeAndWait(() -> panel.setLocation(0, 0));
-    EventQueue.invokeAndWait(() -> imp.getWindow().setLocation(panel.getWidth() + 10, 0));
+    Robot robot = new Robot(); // screenshots and waiting for the event queue only: no input
     // No window manager under Xvfb: keep ImageJ's own window clear of the panel, and raise the
     // panel before every click (a Log or Results window may open over it).
-    EventQueue.invokeAndWait(() -> ij.setLocation(0, panel.getHeight() + 300));
-    Robot robot = new Robot(); // screenshots and waiting for the event queue only: no input
-    robot.waitForIdle();
+    place(robot, panel, 0, 0);
+    place(robot, imp.getWindow(), panel.getWidth() + 10, 0);
+    place(robot, ij, 0, panel.getHeight() + 300);
     Thread.sleep(500);
 
-    StrokePlan plan = StrokePlan.of(SAMPLES.resolve("nuclei.seeds.tif"));
-    EventQueue.invokeAndWait(() -> session.setSettings(session.settings().withWidth(3), false));
+    StrokePlan plan =
+        StrokePlan.of(SAMPLES.resolve("nuclei.seeds.tif"), SAMPLES.resolve("nuclei.truth.tif"));
+    // the width as a user sets it, in the panel's field, so that the screenshots show it
+    TextField width = field(panel, "Brush width (pixels)");
+    EventQueue.invokeAndWait(() -> width.setText("3"));
+    waitFor(() -> session.settings().width() == 3, 10_000, "brush width 3 from the panel's field");
+    result.setProperty("widthField", width.getText());
+    result.setProperty("width", "" + session.settings().width());
     drag(robot, imp, plan.foreground(), false);
     drag(robot, imp, plan.background(), true); // Alt: the other class than the panel's
     waitFor(() -> session.strokes.strokes().size() == 2, 10_000, "two strokes");
-    result.setProperty("stroke1", "" + session.strokes.strokes().get(0).label());
-    result.setProperty("stroke2", "" + session.strokes.strokes().get(1).label());
+    ImagePlus truth = IJ.openImage(SAMPLES.resolve("nuclei.truth.tif").toString());
+    byte[] truthPixels = (byte[]) truth.getProcessor().getPixels();
+    String[] names = {"foreground", "background"};
+    StrokePlan.Polyline[] planned = {plan.foreground(), plan.background()};
+    for (int k = 0; k < 2; k++) {
+      SeedStrokes.Stroke painted = session.strokes.strokes().get(k);
+      result.setProperty("stroke" + (k + 1), "" + painted.label());
+      result.setProperty(
+          names[k] + "Planned", String.format(Locale.ROOT, "%.1f", planned[k].length()));
+      result.setProperty(names[k] + "Painted", String.format(Locale.ROOT, "%.1f", length(painted)));
+      System.out.printf(
+          Locale.ROOT,
+          "%s stroke: %d points, %.1f px planned; painted %d points, %.1f px%n",
+          names[k],
+          planned[k].size(),
+          planned[k].length(),
+          painted.xs().length,
+          length(painted));
+    }
+    byte[][] labels = new byte[1][];
+    EventQueue.invokeAndWait(() -> labels[0] = session.strokes.labels().labels());
+    result.setProperty("strayForeground", "" + stray(labels[0], truthPixels, 1));
+    result.setProperty("strayBackground", "" + stray(labels[0], truthPixels, 2));
     waitFor(
         () -> session.lastMask() != null && panel.statusText().contains("re-learned"),
         30_000,
@@ -86,19 +116,25 @@ public final class BrushDriver {
     Button create = button(panel, "Create mask");
     for (int attempt = 0; WindowManager.getImage("nuclei.mask") == null; attempt++) {
       if (attempt == 3) {
-        throw new AssertionError("timed out waiting for mask window after three clicks");
+        save(robot, shots.resolve("brush-no-mask.png"));
+        StringBuilder frames = new StringBuilder();
+        for (Frame f : Frame.getFrames()) {
+          frames.append(f.isShowing() ? " [" + f.getTitle() + " at " + f.getBounds() + "]" : "");
+        }
+        throw new AssertionError(
+            "timed out waiting for mask window after three clicks on "
+                + create.getLocationOnScreen()
+                + "; status: "
+                + panel.statusText()
+                + "; windows:"
+                + frames);
       }
       clickOnTop(robot, panel, create);
       holds(() -> WindowManager.getImage("nuclei.mask") != null, 60_000);
     }
     ImagePlus mask = WindowManager.getImage("nuclei.mask");
-    ImagePlus truth = IJ.openImage(SAMPLES.resolve("nuclei.truth.tif").toString());
     result.setProperty(
-        "dice",
-        ""
-            + Agreement.dice(
-                (byte[]) mask.getProcessor().getPixels(),
-                (byte[]) truth.getProcessor().getPixels()));
+        "dice", "" + Agreement.dice((byte[]) mask.getProcessor().getPixels(), truthPixels));
     result.setProperty("info", (String) mask.getProperty("Info"));
     mask.changes = false;
     mask.close();
@@ -157,19 +193,76 @@ public final class BrushDriver {
             .count();
   }
 
-  /** Paints the run {x0, y, x1} of image pixels as one drag on the canvas, Alt held if asked. */
-  private static void drag(Robot robot, ImagePlus imp, int[] run, boolean alt) throws Exception {
+  /**
+   * Paints the polyline of image pixels as one drag on the canvas, Alt held if asked: each point
+   * goes to the screen pixel that shows the image pixel's centre, so the pointer is over that
+   * pixel.
+   */
+  private static void drag(Robot robot, ImagePlus imp, StrokePlan.Polyline line, boolean alt)
+      throws Exception {
     EventQueue.invokeAndWait(() -> imp.getWindow().toFront());
     robot.waitForIdle();
     ImageCanvas c = imp.getCanvas();
     Point o = c.getLocationOnScreen();
     double mag = c.getMagnification();
     Rectangle src = c.getSrcRect();
-    int y = o.y + (int) Math.round((run[1] + 0.5 - src.y) * mag);
-    int x0 = o.x + (int) Math.round((run[0] + 0.5 - src.x) * mag);
-    int x1 = o.x + (int) Math.round((run[2] + 0.5 - src.x) * mag);
-    Xdo.drag(x0, y, x1, alt);
+    int[] xs = new int[line.size()];
+    int[] ys = new int[line.size()];
+    for (int i = 0; i < xs.length; i++) {
+      xs[i] = o.x + (int) Math.floor((line.xs()[i] + 0.5 - src.x) * mag);
+      ys[i] = o.y + (int) Math.floor((line.ys()[i] + 0.5 - src.y) * mag);
+    }
+    Xdo.drag(xs, ys, alt);
     robot.waitForIdle();
+  }
+
+  /** The length of a painted stroke's polyline, in image pixels. */
+  static double length(SeedStrokes.Stroke s) {
+    double l = 0;
+    for (int i = 1; i < s.xs().length; i++) {
+      l += Math.hypot(s.xs()[i] - s.xs()[i - 1], s.ys()[i] - s.ys()[i - 1]);
+    }
+    return l;
+  }
+
+  /** Pixels of seed {@code label} on the other class of the truth (255 foreground). */
+  static long stray(byte[] labels, byte[] truth, int label) {
+    long n = 0;
+    for (int i = 0; i < labels.length; i++) {
+      if (labels[i] == label && (truth[i] != 0) != (label == 1)) {
+        n++;
+      }
+    }
+    return n;
+  }
+
+  /** The text field in the row of {@code label} (the component after the label). */
+  private static TextField field(Container c, String label) {
+    Component[] k = c.getComponents();
+    for (int i = 0; i + 1 < k.length; i++) {
+      if (k[i] instanceof Label l && l.getText().equals(label) && k[i + 1] instanceof TextField t) {
+        return t;
+      }
+    }
+    throw new AssertionError("no text field after the label " + label);
+  }
+
+  /**
+   * Moves a top-level window to ({@code x}, {@code y}) on the screen and waits until the display
+   * has it there: a move right after the window was shown can be lost (no window manager).
+   */
+  private static void place(Robot robot, java.awt.Window w, int x, int y) throws Exception {
+    for (int attempt = 0; attempt < 20; attempt++) {
+      EventQueue.invokeAndWait(() -> w.setLocation(x, y));
+      robot.waitForIdle();
+      Thread.sleep(100);
+      Point at = w.getLocationOnScreen();
+      if (at.x == x && at.y == y) {
+        return;
+      }
+    }
+    throw new AssertionError(
+        "window " + w.getName() + " stays at " + w.getLocationOnScreen() + ", not " + x + "," + y);
   }
 
   private static void click(Robot robot, Component c) {

@@ -126,14 +126,7 @@ class BrushSessionStopTest {
 
   /** A wider foreground stroke over the first one: new hard constraints around it. */
   private static void addStroke(BrushSession s, StrokePlan plan) throws Exception {
-    int[] r = plan.foreground();
-    SeedStrokes.Stroke wide =
-        new SeedStrokes.Stroke(
-            new float[] {r[0] + 0.5f, r[2] + 0.5f},
-            new float[] {r[1] + 0.5f, r[1] + 0.5f},
-            3,
-            1,
-            0);
+    SeedStrokes.Stroke wide = plan.foreground().stroke(3, 1, 0.5f);
     EventQueue.invokeAndWait(() -> s.strokes.add(wide));
   }
 

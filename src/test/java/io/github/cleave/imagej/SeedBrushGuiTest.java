@@ -18,12 +18,14 @@ import org.junit.jupiter.api.io.TempDir;
  * child JVM with its own home folder), the mouse and keys moved by the {@code xdotool} program
  * ({@link Xdo}): needs a display (CI runs under Xvfb) and {@code xdotool} on the {@code PATH}; with
  * {@code CLEAVE_REQUIRE_DISPLAY=1} a missing display or program fails the test instead of skipping
- * it. One foreground stroke and, with Alt held, one background stroke dragged with the mouse give a
- * mask within Dice 0.9 of the sample's ground truth (sample-images/README.md: nuclei.truth.tif);
- * moving the boundary penalty slider up changes the cut to a shorter boundary (a larger λ never
- * lengthens the minimum cut's boundary term; pixel-edge count used as its proxy, common practice,
- * no source); Ctrl+Z on the image undoes the last stroke and its overlay. Screenshots of the panel
- * and the contour are left in {@code target/gui/}.
+ * it. The brush width typed into the panel reaches the brush; one foreground stroke and, with Alt
+ * held, one background stroke dragged with the mouse along the sample's own seed strokes stay
+ * inside their class of the sample's ground truth (sample-images/README.md: nuclei.truth.tif) and
+ * give a mask within Dice 0.9 of it; moving the boundary penalty slider up changes the cut to a
+ * shorter boundary (a larger λ never lengthens the minimum cut's boundary term; pixel-edge count
+ * used as its proxy, common practice, no source); Ctrl+Z on the image undoes the last stroke and
+ * its overlay. Screenshots of the panel and the contour, and the driver's log with the strokes'
+ * lengths, are left in {@code target/gui/}.
  */
 class SeedBrushGuiTest {
   @Test
@@ -42,7 +44,7 @@ class SeedBrushGuiTest {
     }
     Path out = Files.createDirectories(Path.of("target", "gui"));
     Files.deleteIfExists(out.resolve("result.properties"));
-    Path log = tmp.resolve("child.log");
+    Path log = out.resolve("driver.log"); // kept: it tells the strokes' lengths
     Process p =
         new ProcessBuilder(
                 List.of(
@@ -65,8 +67,21 @@ class SeedBrushGuiTest {
     try (var in = Files.newInputStream(out.resolve("result.properties"))) {
       r.load(in);
     }
+    assertThat(r.getProperty("widthField")).isEqualTo("3");
+    assertThat(r.getProperty("width")).isEqualTo("3.0");
     assertThat(r.getProperty("stroke1")).isEqualTo("1");
     assertThat(r.getProperty("stroke2")).isEqualTo("2"); // Alt: the other class
+    for (String k : new String[] {"foreground", "background"}) {
+      // strokes, not dots: the drag follows the seed stroke end to end
+      double planned = Double.parseDouble(r.getProperty(k + "Planned"));
+      assertThat(planned).as(k).isGreaterThan(10);
+      assertThat(Double.parseDouble(r.getProperty(k + "Painted")))
+          .as(k)
+          .isGreaterThan(0.9 * planned);
+    }
+    // each stroke stays inside its own class of the ground truth
+    assertThat(r.getProperty("strayForeground")).isEqualTo("0");
+    assertThat(r.getProperty("strayBackground")).isEqualTo("0");
     assertThat(r.getProperty("status")).contains("flow value = cut value = ", "(checked)");
     assertThat(Double.parseDouble(r.getProperty("dice"))).isGreaterThanOrEqualTo(0.9);
     assertThat(r.getProperty("info")).contains("Made by Cleave", "\"boundaryPenalty\":2.0");

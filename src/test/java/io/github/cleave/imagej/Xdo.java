@@ -26,9 +26,6 @@ final class Xdo {
 
   static final int TIMEOUT_S = 30;
 
-  /** Mouse moves between the ends of a stroke, so that the canvas sees a drag along it. */
-  static final int STEPS = 10;
-
   private Xdo() {}
 
   /** The {@code xdotool} executable on the {@code PATH}, if there is one. */
@@ -50,24 +47,33 @@ final class Xdo {
   }
 
   /**
-   * A horizontal drag with button 1 from ({@code x0}, {@code y}) to ({@code x1}, {@code y}) in at
-   * most {@value #STEPS} moves, with Alt held from before the press to after the release when
-   * {@code alt}. Each move waits ({@code --sync}) until the pointer is there; a chain never moves
-   * to where the pointer already is, since {@code --sync} would then wait for ever (seen with
+   * A drag with button 1 along the polyline through ({@code xs[i]}, {@code ys[i]}), with Alt held
+   * from before the press to after the release when {@code alt}: the pointer moves to the first
+   * point, the button goes down, the pointer moves to every further point in turn and the button
+   * comes up at the last. Each move waits ({@code --sync}) until the pointer is there; a chain
+   * never moves to where the pointer already is (a point equal to the one before it, or a first
+   * point where the pointer rests), since {@code --sync} would then wait for ever (seen with
    * xdotool 3.20160805).
+   *
+   * @throws IllegalArgumentException if there is no point or the arrays differ in length
    */
-  static void drag(int x0, int y, int x1, boolean alt) {
-    List<String> a = new ArrayList<>(List.of("mousemove", "--sync", "" + x0, "" + y));
+  static void drag(int[] xs, int[] ys, boolean alt) {
+    if (xs.length == 0 || xs.length != ys.length) {
+      throw new IllegalArgumentException(
+          "drag: " + xs.length + " x and " + ys.length + " y values, give as many, at least 1");
+    }
+    int[] at = pointer();
+    List<String> a = new ArrayList<>();
+    if (at[0] != xs[0] || at[1] != ys[0]) {
+      a.addAll(List.of("mousemove", "--sync", "" + xs[0], "" + ys[0]));
+    }
     if (alt) {
       a.addAll(List.of("keydown", "alt"));
     }
     a.addAll(List.of("mousedown", "1"));
-    int last = x0;
-    for (int i = 1; i <= STEPS; i++) {
-      int x = x0 + (x1 - x0) * i / STEPS;
-      if (x != last) {
-        a.addAll(List.of("sleep", "0.02", "mousemove", "--sync", "" + x, "" + y));
-        last = x;
+    for (int i = 1; i < xs.length; i++) {
+      if (xs[i] != xs[i - 1] || ys[i] != ys[i - 1]) {
+        a.addAll(List.of("sleep", "0.02", "mousemove", "--sync", "" + xs[i], "" + ys[i]));
       }
     }
     a.addAll(List.of("sleep", "0.02", "mouseup", "1"));
@@ -75,6 +81,23 @@ final class Xdo {
       a.addAll(List.of("keyup", "alt"));
     }
     run(a);
+  }
+
+  /** The pointer's position on the screen, {x, y}. */
+  static int[] pointer() {
+    // --shell prints X=..., Y=..., SCREEN=..., WINDOW=... one a line
+    int[] at = {-1, -1};
+    for (String line : run(List.of("getmouselocation", "--shell")).split("\\R")) {
+      if (line.startsWith("X=")) {
+        at[0] = Integer.parseInt(line.substring(2).trim());
+      } else if (line.startsWith("Y=")) {
+        at[1] = Integer.parseInt(line.substring(2).trim());
+      }
+    }
+    if (at[0] < 0 || at[1] < 0) {
+      throw new AssertionError("xdotool getmouselocation --shell printed no X= and Y= lines");
+    }
+    return at;
   }
 
   /** Moves the pointer to ({@code x}, {@code y}) and clicks button 1 there. */
@@ -87,8 +110,8 @@ final class Xdo {
     run(List.of("key", combo));
   }
 
-  /** Runs {@code xdotool ARGS} and waits for it to exit 0. */
-  static void run(List<String> args) {
+  /** Runs {@code xdotool ARGS}, waits for it to exit 0 and returns what it printed. */
+  static String run(List<String> args) {
     List<String> cmd = new ArrayList<>();
     cmd.add(find().orElseThrow(() -> new AssertionError(MISSING)).toString());
     cmd.addAll(args);
@@ -113,6 +136,7 @@ final class Xdo {
                 + System.getenv("DISPLAY")
                 + " a running X server?)");
       }
+      return out;
     } catch (IOException e) {
       throw new AssertionError(line + " could not start: " + e.getMessage() + "; " + MISSING, e);
     } catch (InterruptedException e) {
