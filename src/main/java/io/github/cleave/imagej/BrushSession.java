@@ -34,8 +34,11 @@ import java.util.function.Consumer;
  * <p><b>Threads.</b> Strokes and the overlay belong to the event thread. Every change asks for a
  * cut ({@link #request}); cuts run on one worker thread, newest request first: a request that is no
  * longer the newest when its turn comes is skipped, and a result that is stale when it arrives is
- * not shown. About {@value #RELEARN_MS} ms after the last stroke the likelihoods are learned again
- * from all seeds (every plane counts) and the cut rebuilt.
+ * not shown. A newer request also cuts short a running one that is still slow work (learning,
+ * building a graph, solving from zero flow: {@link LiveCutStop#supersede}); a running dynamic
+ * re-solve is left to finish, since it is quicker than redoing it from zero flow. About {@value
+ * #RELEARN_MS} ms after the last stroke the likelihoods are learned again from all seeds (every
+ * plane counts) and the cut rebuilt.
  *
  * <p><b>Esc.</b> Esc pressed on the image window or the panel, or recorded by ImageJ while a cut
  * runs ({@link LiveCutStop}), stops the running cut ({@link #stopCut}): the worker is interrupted,
@@ -166,6 +169,7 @@ final class BrushSession implements ImageListener {
   /** Asks for a cut of the present strokes and settings; returns the request's number. */
   long request(boolean relearn) {
     long gen = latest.incrementAndGet();
+    stop.supersede(gen); // a stale cut still learning or building gives way
     long asked = System.nanoTime();
     SeedStrokes.Snapshot snap = strokes.snapshot();
     BrushSettings s = settings;
@@ -216,6 +220,10 @@ final class BrushSession implements ImageListener {
       progress.phase("cutting (Esc stops)", 0.5, 0.95, volume ? voxels : voxels / features.depth());
       phase("solve");
       SeedLabels cutSeeds = volume ? seeds : plane(seeds, plane);
+      stop.slow(!live.wouldContinue(s.boundaryPenalty(), s.contrastScale()));
+      if (gen != latest.get() && !live.wouldContinue(s.boundaryPenalty(), s.contrastScale())) {
+        return; // superseded before the slow solve began: the newer request does it
+      }
       LiveCut.Outcome o = live.update(cutSeeds, s.boundaryPenalty(), s.contrastScale());
       if (o.stopped()) {
         show(gen, null, -1, STOPPED);

@@ -145,6 +145,15 @@ final class LiveCut {
         CutProblem.mask(result), result.flowValue(), certified, result.solveNanos(), dynamic);
   }
 
+  /**
+   * Whether {@link #update} with these parameters would continue from the kept flow (a dynamic
+   * re-solve) rather than build or solve from zero flow.
+   */
+  boolean wouldContinue(double lambda, double contrastScale) {
+    double s = Double.isNaN(contrastScale) ? sigma : contrastScale;
+    return cut != null && !stale && lambda == builtLambda && s == builtSigma;
+  }
+
   /** Whether the kept cut's last solve was interrupted (the next update solves from zero flow). */
   boolean isStale() {
     return stale;

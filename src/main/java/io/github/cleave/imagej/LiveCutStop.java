@@ -9,8 +9,9 @@ import java.awt.event.KeyEvent;
 import java.awt.event.KeyListener;
 
 /**
- * Esc for the seed brush's live cut: stops the cut running on the session's worker thread by
- * interrupting it (the max-flow engine polls the interrupt and returns early).
+ * Esc for the seed brush's live cut, and newer requests superseding slow stale ones: stops the cut
+ * running on the session's worker thread by interrupting it (the max-flow engine polls the
+ * interrupt and returns early).
  *
  * <p>Esc is seen three ways: a key listener on the image window and canvas, the same listener on
  * the panel and its components ({@link #listenTo}), and ImageJ's own Esc flag ({@link
@@ -29,6 +30,7 @@ final class LiveCutStop {
   private volatile long running; // the request being cut, 0 when the worker is idle
   private volatile Thread worker; // the thread of the running cut
   private volatile boolean escapeAtStart; // ImageJ's Esc flag was up when the cut began
+  private volatile boolean slow; // the running cut is slow work (see #slow)
   final KeyListener keys = new Keys();
 
   /**
@@ -38,17 +40,42 @@ final class LiveCutStop {
     this.undo = undo;
   }
 
-  /** The worker starts cutting request {@code gen} (&gt; 0). */
-  void begin(long gen) {
+  /**
+   * The worker starts cutting request {@code gen} (&gt; 0), counted as slow work until {@link
+   * #slow} says otherwise.
+   */
+  synchronized void begin(long gen) {
     worker = Thread.currentThread();
     escapeAtStart = IJ.escapePressed();
+    slow = true;
     running = gen;
   }
 
+  /**
+   * Whether the running cut is slow work (learning, building a graph, a solve from zero flow) that
+   * a newer request should cut short, rather than a dynamic re-solve, which is quicker to finish
+   * than to redo from zero flow after an interrupt.
+   */
+  void slow(boolean isSlow) {
+    slow = isSlow;
+  }
+
   /** The worker is done; an interrupt meant for this cut is cleared. */
-  void end() {
+  synchronized void end() {
     running = 0;
     Thread.interrupted();
+  }
+
+  /**
+   * A request numbered {@code gen} has been made: stops the running cut if it is an older one and
+   * slow work. Synchronised with {@link #begin} and {@link #end}, so it never reaches the cut that
+   * follows.
+   */
+  synchronized void supersede(long gen) {
+    Thread t = worker;
+    if (running != 0 && running < gen && slow && t != null) {
+      t.interrupt();
+    }
   }
 
   /** Whether a cut is running. */

@@ -108,6 +108,37 @@ class BrushSessionStopTest {
     assertThat(imp.getProcessor().getPixels()).isEqualTo(pixels);
   }
 
+  @Test
+  void aNewerRequestCutsShortAStaleCutStillLearning() throws Exception {
+    ImagePlus imp = IJ.openImage(IMAGE.toString());
+    java.util.List<String> seen = new java.util.concurrent.CopyOnWriteArrayList<>();
+    java.util.List<String> lines = new java.util.concurrent.CopyOnWriteArrayList<>();
+    BrushSession session = session(imp, lines::add);
+    StrokePlan plan = StrokePlan.of(SEEDS);
+    paint(session, plan, 1);
+    session.phaseHook =
+        phase -> {
+          seen.add(phase);
+          if (seen.size() == 1) {
+            session.request(false); // a newer stroke arrives while the first cut learns
+          }
+        };
+    EventQueue.invokeAndWait(() -> session.request(false));
+    BrushDriver.waitFor(() -> session.lastMask() != null, 60_000, "the newer request's cut");
+    // the stale cut stopped after learning, before solving; the newer one learned and solved
+    assertThat(seen).containsExactly("learn", "learn", "solve");
+    assertThat(lines).noneMatch(BrushSession.STOPPED::equals);
+
+    ImagePlus other = IJ.openImage(IMAGE.toString());
+    BrushSession plain = session(other, line -> {});
+    paint(plain, plan, 1);
+    EventQueue.invokeAndWait(() -> plain.request(false));
+    BrushDriver.waitFor(() -> plain.lastMask() != null, 60_000, "reference cut");
+    assertThat(session.lastMask()).isEqualTo(plain.lastMask());
+    EventQueue.invokeAndWait(session::close);
+    EventQueue.invokeAndWait(plain::close);
+  }
+
   static BrushSession session(ImagePlus imp, Consumer<String> status) throws Exception {
     BrushSession[] s = new BrushSession[1];
     EventQueue.invokeAndWait(() -> s[0] = new BrushSession(imp, status));
