@@ -184,15 +184,15 @@ public final class CutProblem {
       throw new IllegalArgumentException(
           String.format(Locale.ROOT, "seeds: %d labels for %d voxels", labels.length, n));
     }
-    int[] sourceDelta = new int[n];
-    int[] sinkDelta = new int[n];
-    for (int p = 0; p < n; p++) {
+    for (int p = 0; p < n; p++) { // few voxels change: one call each, no arrays of n deltas
       if (labels[p] != seedLabels[p]) {
+        int cs = source[p];
+        int ct = sink[p];
         seedLabels[p] = labels[p];
-        retarget(p, sourceDelta, sinkDelta);
+        setTerminals(p);
+        solver.addTerminalCapacities(p, source[p] - cs, sink[p] - ct);
       }
     }
-    solver.addTerminalCapacities(sourceDelta, sinkDelta);
   }
 
   /** Sets voxel p's terminals anew and records the change (both within 0 .. MAX: no overflow). */

@@ -148,10 +148,8 @@ public final class FixedLabelCut {
     int[] caps = new int[free * directions];
     int[] source = new int[free];
     int[] sink = new int[free];
-    int[] row = new int[directions];
     for (int i = 0; i < free; i++) {
-      long[] terminals = arcs.of(nodes[i], backgroundCost, foregroundCost, row);
-      System.arraycopy(row, 0, caps, i * directions, directions);
+      long[] terminals = arcs.of(nodes[i], backgroundCost, foregroundCost, caps, i * directions);
       source[i] = (int) Math.min(Integer.MAX_VALUE, terminals[0]);
       sink[i] = (int) Math.min(Integer.MAX_VALUE, terminals[1]);
     }
@@ -184,10 +182,10 @@ public final class FixedLabelCut {
     long constant = 0;
     for (int i = 0; i < free; i++) {
       int p = nodes[i];
-      long[] terminals = arcs.of(p, backgroundCost, foregroundCost, row);
+      long[] terminals = arcs.of(p, backgroundCost, foregroundCost, row, 0);
       for (int k = 0; k < directions; k++) {
         if (row[k] > 0) {
-          graph.addArc(i, index[p + arcs.step[k]], row[k]);
+          graph.addArc(i, index[p + arcs.step(k)], row[k]);
         }
       }
       // Only the difference of the two terminal arcs matters to the cut (the grid solver
@@ -242,7 +240,6 @@ public final class FixedLabelCut {
   private static final class Arcs {
     final Neighborhood neighborhood;
     final int directions;
-    final int[] step;
     private final BoundaryArcs.PairCapacities pairs;
     private final byte[] fixed;
     private final int width;
@@ -258,25 +255,26 @@ public final class FixedLabelCut {
       width = features.width();
       height = features.height();
       depth = features.depth();
-      step = new int[directions];
-      for (int k = 0; k < directions; k++) {
-        step[k] = neighborhood.dx(k) + width * (neighborhood.dy(k) + height * neighborhood.dz(k));
-      }
+    }
+
+    /** Index offset of the neighbour in direction k. */
+    int step(int k) {
+      return pairs.step(k);
     }
 
     /**
-     * Fills {@code row[k]} with the capacity towards the free neighbour in direction k (0 when the
-     * neighbour is fixed or outside the grid) and returns {source, sink} capacities of {@code p};
-     * the array is reused by the next call.
+     * Fills {@code out[offset + k]} with the capacity towards the free neighbour in direction k (0
+     * when the neighbour is fixed or outside the grid) and returns {source, sink} capacities of
+     * {@code p}; the returned array is reused by the next call.
      */
-    long[] of(int p, float[] backgroundCost, float[] foregroundCost, int[] row) {
+    long[] of(int p, float[] backgroundCost, float[] foregroundCost, int[] out, int offset) {
       int x = p % width;
       int y = p / width % height;
       int z = p / (width * height);
       long toSource = CapacityScale.toCapacity(backgroundCost[p]);
       long toSink = CapacityScale.toCapacity(foregroundCost[p]);
       for (int k = 0; k < directions; k++) {
-        row[k] = 0;
+        out[offset + k] = 0;
         int qx = x + neighborhood.dx(k);
         int qy = y + neighborhood.dy(k);
         int qz = z + neighborhood.dz(k);
@@ -284,13 +282,13 @@ public final class FixedLabelCut {
           continue;
         }
         int cap = pairs.between(p, k);
-        byte label = fixed[p + step[k]];
+        byte label = fixed[p + pairs.step(k)];
         if (label == SeedLabels.FOREGROUND) {
           toSource += cap;
         } else if (label == SeedLabels.BACKGROUND) {
           toSink += cap;
         } else {
-          row[k] = cap;
+          out[offset + k] = cap;
         }
       }
       terminals[0] = toSource;

@@ -745,7 +745,9 @@ public final class GridMaxFlow implements MaxFlowSolver {
         }
       }
     }
-    if (capacity == null && bits > Residuals.NARROW_CAPACITY) {
+    if (capacity == null
+        && bits > Residuals.NARROW_CAPACITY
+        && search.residual instanceof Residuals.Narrow) { // once widened, rows need no check
       int largest = 0;
       for (int i = 0; i < length; i++) {
         largest = Math.max(largest, caps[i]);

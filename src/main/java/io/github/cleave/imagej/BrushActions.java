@@ -9,7 +9,6 @@ import ij.io.OpenDialog;
 import ij.io.RoiEncoder;
 import ij.io.SaveDialog;
 import ij.plugin.frame.RoiManager;
-import ij.process.ByteProcessor;
 import io.github.cleave.image.BadInputException;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.io.ModelFiles;
@@ -142,13 +141,7 @@ final class BrushActions {
       return;
     }
     SeedLabels s = session.strokes.labels();
-    ImageStack stack = new ImageStack(s.width(), s.height());
-    int n = s.width() * s.height();
-    for (int z = 0; z < s.depth(); z++) {
-      byte[] p = new byte[n];
-      System.arraycopy(s.labels(), z * n, p, 0, n);
-      stack.addSlice(null, new ByteProcessor(s.width(), s.height(), p));
-    }
+    ImageStack stack = ResultImages.byteStack(s.labels(), s.width(), s.height(), s.depth());
     ImagePlus imp = new ImagePlus(sd.getFileName(), stack);
     String path = Path.of(sd.getDirectory(), sd.getFileName()).toString();
     if (new FileSaver(imp).saveAsTiff(path)) {

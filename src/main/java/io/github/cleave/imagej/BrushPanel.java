@@ -187,12 +187,7 @@ final class BrushPanel extends Frame {
       return;
     }
     String nb = neighborhood.getSelectedItem();
-    ModelKind kind =
-        switch (likelihood.getSelectedItem()) {
-          case "histogram" -> ModelKind.HISTOGRAM;
-          case "mixture" -> ModelKind.GAUSSIAN_MIXTURE;
-          default -> ModelKind.AUTO;
-        };
+    ModelKind kind = SettingsFields.likelihood(likelihood.getSelectedItem());
     session.setSettings(
         session
             .settings()

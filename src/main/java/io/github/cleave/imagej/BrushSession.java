@@ -78,6 +78,9 @@ final class BrushSession implements ImageListener {
 
   // event thread only
   private byte[] mask; // last mask shown: one plane (plane mode) or the volume
+  private Roi contour; // the contour of mask on contourPlane, traced once per mask and plane
+  private byte[] contourMask;
+  private int contourPlane = -2;
   private int maskPlane = -1; // the plane of mask, or -1 for a volume
   private int shownPlane = -1;
   private Roi drawing; // the stroke being drawn
@@ -220,8 +223,9 @@ final class BrushSession implements ImageListener {
       progress.phase("cutting (Esc stops)", 0.5, 0.95, volume ? voxels : voxels / features.depth());
       phase("solve");
       SeedLabels cutSeeds = volume ? seeds : plane(seeds, plane);
-      stop.slow(!live.wouldContinue(s.boundaryPenalty(), s.contrastScale()));
-      if (gen != latest.get() && !live.wouldContinue(s.boundaryPenalty(), s.contrastScale())) {
+      boolean dynamic = live.wouldContinue(s.boundaryPenalty(), s.contrastScale());
+      stop.slow(!dynamic);
+      if (gen != latest.get() && !dynamic) {
         return; // superseded before the slow solve began: the newer request does it
       }
       LiveCut.Outcome o = live.update(cutSeeds, s.boundaryPenalty(), s.contrastScale());
@@ -322,7 +326,12 @@ final class BrushSession implements ImageListener {
     if (drawing != null) {
       ov.add(drawing);
     }
-    Roi contour = CutContour.of(mask, maskPlane, imp, plane());
+    int z = plane();
+    if (mask != contourMask || z != contourPlane) { // strokes being drawn leave the cut as it is
+      contour = CutContour.of(mask, maskPlane, imp, z);
+      contourMask = mask;
+      contourPlane = z;
+    }
     if (contour != null) {
       ov.add(contour);
     }

@@ -51,7 +51,7 @@ record ResultImages(ImagePlus mask, ImagePlus labels, ResultsTable table) {
     int d = raster.depth();
     String base = baseTitle(source.getTitle());
     String info = info(source, result, command, inputs);
-    ImagePlus mask = new ImagePlus(base + ".mask", maskStack(result.mask(), w, h, d));
+    ImagePlus mask = new ImagePlus(base + ".mask", byteStack(result.mask(), w, h, d));
     ImagePlus labels = new ImagePlus(base + ".labels", labelStack(result.objects()));
     for (ImagePlus imp : new ImagePlus[] {mask, labels}) {
       imp.setDimensions(1, d, 1);
@@ -143,12 +143,13 @@ record ResultImages(ImagePlus mask, ImagePlus labels, ResultsTable table) {
     return dot > 0 ? title.substring(0, dot) : title;
   }
 
-  private static ImageStack maskStack(byte[] mask, int w, int h, int d) {
+  /** A stack of byte planes holding {@code values} (w · h · d, plane after plane). */
+  static ImageStack byteStack(byte[] values, int w, int h, int d) {
     ImageStack stack = new ImageStack(w, h);
     int plane = w * h;
     for (int z = 0; z < d; z++) {
       byte[] p = new byte[plane];
-      System.arraycopy(mask, z * plane, p, 0, plane);
+      System.arraycopy(values, z * plane, p, 0, plane);
       stack.addSlice(null, new ByteProcessor(w, h, p));
     }
     return stack;

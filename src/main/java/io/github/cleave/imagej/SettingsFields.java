@@ -140,7 +140,8 @@ final class SettingsFields {
     };
   }
 
-  private static ModelKind likelihood(String s) {
+  /** The likelihood model named {@code s} (auto, histogram, mixture). */
+  static ModelKind likelihood(String s) {
     return switch (s.toLowerCase(Locale.ROOT)) {
       case "auto" -> ModelKind.AUTO;
       case "histogram" -> ModelKind.HISTOGRAM;

@@ -68,18 +68,12 @@ final class BoundaryBand {
     boolean[] boundary = boundary(mask, w, h, d, planes);
     int n = mask.length;
     byte[] steps = new byte[n];
-    int[] front = new int[Math.max(16, n / 32)];
-    int size = 0;
-    for (int p = 0; p < n; p++) {
-      if (boundary[p]) {
-        steps[p] = 1;
-        if (size == front.length) {
-          front = Arrays.copyOf(front, 2 * size);
-        }
-        front[size++] = p;
-      }
+    int[] front = NearestSource.members(boundary);
+    int size = front.length;
+    for (int p : front) {
+      steps[p] = 1;
     }
-    int[] next = new int[front.length];
+    int[] next = new int[Math.max(16, size)];
     int[] around = new int[6];
     for (int step = 1; step <= limit && size > 0; step++) {
       int nextSize = 0;
