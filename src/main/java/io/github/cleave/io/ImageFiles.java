@@ -26,12 +26,13 @@ import java.util.Locale;
  * an image of C channels and Z slices becomes C channels of a {@code width x height x Z} raster.
  *
  * <p>Refused with a one-line {@link BadInputException} naming the file: a missing, empty, corrupt
- * or truncated file; a time-lapse (more than one time point); 8-bit indexed colour (convert it to
- * RGB first); an RGB image with several channels; an image whose estimated memory need ({@link
- * MemoryEstimate}, checked from the header before the pixels are read where the format allows)
- * exceeds the free heap; and a 32-bit image with NaN or infinite pixels, which the segmentation
- * cannot weigh: the message gives their number and the first position, and asks to replace them
- * (for instance with 0 or the background level) before segmenting.
+ * or truncated file; a time-lapse (more than one time point: {@link Hyperstacks} opens those one
+ * time point at a time); 8-bit indexed colour (convert it to RGB first); an RGB image with several
+ * channels; an image whose estimated memory need ({@link MemoryEstimate}, checked from the header
+ * before the pixels are read where the format allows) exceeds the free heap; and a 32-bit image
+ * with NaN or infinite pixels, which the segmentation cannot weigh: the message gives their number
+ * and the first position, and asks to replace them (for instance with 0 or the background level)
+ * before segmenting.
  *
  * <p>Calibration: when the file has a real unit (ImageJ's {@code Calibration.scaled()}), the voxel
  * size is its pixel width, height and depth in that unit with {@code assumed = false}; otherwise
@@ -145,7 +146,7 @@ public final class ImageFiles {
    * 8-bit indexed colour: ImageJ's {@code COLOR_256} type, or (as ImageJ 1.54 opens such files) an
    * 8-bit non-composite image whose lookup table is coloured but not a smooth pseudo-colour ramp.
    */
-  private static boolean isIndexedColour(ImagePlus imp) {
+  static boolean isIndexedColour(ImagePlus imp) {
     if (imp.getType() == ImagePlus.COLOR_256) {
       return true;
     }
@@ -155,7 +156,7 @@ public final class ImageFiles {
         && !imp.getProcessor().isPseudoColorLut();
   }
 
-  private static void copyPlane(Object pixels, float[][] out, int c, int offset, int count) {
+  static void copyPlane(Object pixels, float[][] out, int c, int offset, int count) {
     if (pixels instanceof byte[] b) {
       float[] o = out[c];
       for (int i = 0; i < count; i++) {
@@ -183,7 +184,7 @@ public final class ImageFiles {
     }
   }
 
-  private static PixelKind kindOf(int bitDepth, String name) {
+  static PixelKind kindOf(int bitDepth, String name) {
     switch (bitDepth) {
       case 8:
         return PixelKind.GREY8;
@@ -221,7 +222,7 @@ public final class ImageFiles {
     return v > 0 && !Double.isInfinite(v);
   }
 
-  private static void checkFinite(float[][] values, int w, int h, String name) {
+  static void checkFinite(float[][] values, int w, int h, String name) {
     long bad = 0;
     int firstChannel = -1;
     int firstIndex = -1;

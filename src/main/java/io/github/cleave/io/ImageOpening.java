@@ -3,6 +3,7 @@ package io.github.cleave.io;
 import ij.ImagePlus;
 import ij.io.FileInfo;
 import ij.io.Opener;
+import ij.plugin.FileInfoVirtualStack;
 import io.github.cleave.image.BadInputException;
 import java.io.IOException;
 import java.nio.file.Files;
@@ -22,7 +23,9 @@ import javax.imageio.stream.ImageInputStream;
  * instead of being read with zeros), that it is not a time-lapse, and that it fits in the heap
  * ({@link MemoryEstimate}). Accepted: TIFF ({@code .tif}, {@code .tiff}), PNG, and a TIFF inside a
  * {@code .zip} (for those only the checks after reading apply). Every failure is a {@link
- * BadInputException} naming the file.
+ * BadInputException} naming the file. {@link #openForSeries} makes the same checks of the file for
+ * a time-lapse, opening a TIFF virtually and leaving the time points and the memory check to the
+ * caller.
  */
 final class ImageOpening {
   private static final Pattern FRAMES = Pattern.compile("(?m)^frames=(\\d+)");
@@ -32,6 +35,58 @@ final class ImageOpening {
 
   /** Opens {@code file}; {@code role} ("image", "seed image") starts the messages. */
   static ImagePlus open(Path file, String role) {
+    long length = checkFile(file, role);
+    if (isTiff(file)) {
+      FileInfo[] infos = tiffInfos(file, role, length);
+      FileInfo first = infos[0];
+      String description = first.description == null ? "" : first.description;
+      checkTimePoints(file.toString(), role, intIn(FRAMES, description, 1));
+      long needed = tiffBytesNeeded(infos);
+      MemoryEstimate.check(
+          file.toString(),
+          first.width + " x " + first.height + " x " + planeCount(infos) + " planes",
+          needed,
+          MemoryEstimate.availableFor(needed));
+    } else if (isPng(file)) {
+      checkPngHeader(file, role);
+    }
+    ImagePlus imp = openWithImageJ(file, role);
+    checkTimePoints(file.toString(), role, imp.getNFrames());
+    return imp;
+  }
+
+  /**
+   * Opens {@code file} as a time-lapse may be opened: the same checks of the file as {@link #open},
+   * but no refusal of time points and no memory check of the whole file (the caller checks per time
+   * point). A TIFF is opened virtually: only its first plane is read now, every other plane when
+   * its stack asks for it ({@code ij.plugin.FileInfoVirtualStack}); a PNG or a zipped TIFF is read
+   * whole.
+   */
+  static ImagePlus openForSeries(Path file, String role) {
+    long length = checkFile(file, role);
+    if (isTiff(file)) {
+      tiffInfos(file, role, length);
+      ImagePlus imp;
+      try {
+        imp = FileInfoVirtualStack.openVirtual(file.toAbsolutePath().toString());
+      } catch (RuntimeException | LinkageError e) {
+        throw new BadInputException(
+            role + " file " + file + " is not a readable TIFF (corrupt or unsupported): " + e, e);
+      }
+      if (imp == null || imp.getStackSize() < 1 || imp.getProcessor() == null) {
+        throw new BadInputException(
+            role + " file " + file + " is not a readable TIFF (corrupt, truncated or unsupported)");
+      }
+      return imp;
+    }
+    if (isPng(file)) {
+      checkPngHeader(file, role);
+    }
+    return openWithImageJ(file, role);
+  }
+
+  /** Checks that {@code file} exists, is a non-empty file of a known type; returns its length. */
+  private static long checkFile(Path file, String role) {
     String name = file.toString();
     if (!Files.exists(file)) {
       throw new BadInputException(role + " file " + name + " does not exist");
@@ -50,11 +105,7 @@ final class ImageOpening {
           role + " file " + name + " is empty (0 bytes); expected a TIFF or PNG image");
     }
     String lower = file.getFileName().toString().toLowerCase(Locale.ROOT);
-    if (lower.endsWith(".tif") || lower.endsWith(".tiff")) {
-      checkTiffHeader(file, role, length);
-    } else if (lower.endsWith(".png")) {
-      checkPngHeader(file, role);
-    } else if (!lower.endsWith(".zip")) {
+    if (!isTiff(file) && !isPng(file) && !lower.endsWith(".zip")) {
       throw new BadInputException(
           role
               + " file "
@@ -62,6 +113,20 @@ final class ImageOpening {
               + " has an unsupported type; Cleave reads TIFF (.tif, .tiff), PNG (.png) and a TIFF"
               + " zipped by ImageJ (.zip)");
     }
+    return length;
+  }
+
+  static boolean isTiff(Path file) {
+    String lower = file.getFileName().toString().toLowerCase(Locale.ROOT);
+    return lower.endsWith(".tif") || lower.endsWith(".tiff");
+  }
+
+  private static boolean isPng(Path file) {
+    return file.getFileName().toString().toLowerCase(Locale.ROOT).endsWith(".png");
+  }
+
+  private static ImagePlus openWithImageJ(Path file, String role) {
+    String name = file.toString();
     ImagePlus imp;
     try {
       Opener opener = new Opener();
@@ -81,7 +146,6 @@ final class ImageOpening {
               + name
               + " is not a readable image (corrupt, truncated or not a TIFF/PNG file)");
     }
-    checkTimePoints(name, role, imp.getNFrames());
     return imp;
   }
 
@@ -93,12 +157,16 @@ final class ImageOpening {
               + name
               + " has "
               + frames
-              + " time points; time-lapses are not supported yet: segment one time point at a"
-              + " time, saving each as its own file");
+              + " time points; open it as a time-lapse, which segments one time point at a"
+              + " time, or save each time point as its own file");
     }
   }
 
-  private static void checkTiffHeader(Path file, String role, long length) {
+  /**
+   * The image entries of a TIFF's header, after checking that they can be decoded and that their
+   * pixel data lies within the file (a truncated file is refused instead of being read as zeros).
+   */
+  private static FileInfo[] tiffInfos(Path file, String role, long length) {
     String name = file.toString();
     FileInfo[] infos;
     try {
@@ -110,7 +178,6 @@ final class ImageOpening {
       throw new BadInputException(
           role + " file " + name + " is not a readable TIFF (corrupt, or not a TIFF file)");
     }
-    long planes = 0;
     for (FileInfo fi : infos) {
       long end = dataEnd(fi);
       if (end > length) {
@@ -124,25 +191,21 @@ final class ImageOpening {
                 end,
                 length));
       }
-      planes += Math.max(1, fi.nImages);
     }
-    FileInfo first = infos[0];
-    String description = first.description == null ? "" : first.description;
-    checkTimePoints(name, role, intIn(FRAMES, description, 1));
-    long needed = tiffBytesNeeded(infos);
-    MemoryEstimate.check(
-        name,
-        first.width + " x " + first.height + " x " + planes + " planes",
-        needed,
-        MemoryEstimate.availableFor(needed));
+    return infos;
   }
 
-  /** The heap estimate of a TIFF from its image entries ({@link MemoryEstimate}). */
-  private static long tiffBytesNeeded(FileInfo[] infos) {
+  private static long planeCount(FileInfo[] infos) {
     long planes = 0;
     for (FileInfo fi : infos) {
       planes += Math.max(1, fi.nImages);
     }
+    return planes;
+  }
+
+  /** The heap estimate of a TIFF from its image entries ({@link MemoryEstimate}). */
+  private static long tiffBytesNeeded(FileInfo[] infos) {
+    long planes = planeCount(infos);
     FileInfo first = infos[0];
     String description = first.description == null ? "" : first.description;
     int channels = intIn(CHANNELS, description, 1);
