@@ -33,13 +33,13 @@ import java.util.function.LongUnaryOperator;
  * {@link OpenedSeries#warnings()} say what was decided; a detected time-lapse is never cut silently
  * as one volume.
  *
- * <p>Files: a TIFF is opened virtually ({@code ij.plugin.FileInfoVirtualStack}): its header is
- * checked as {@link ImageFiles} checks it (exists, decodable, not truncated), then only the first
- * plane is read, and {@link OpenedSeries#frame(int)} reads the C·Z planes of its time point. A PNG
- * or a zipped TIFF is read whole. The memory check ({@link MemoryEstimate}) is made for one time
- * point, not for the whole file, before any time point is read. Refused as by {@link ImageFiles}:
- * 8-bit indexed colour, RGB with several channels, bit depths other than 8, 16, 24 and 32, frames
- * of more than {@code Integer.MAX_VALUE - 64} voxels.
+ * <p>Files: a TIFF is opened virtually ({@link VirtualTiffs}, over ImageJ's {@code
+ * FileInfoVirtualStack}): its header is checked as {@link ImageFiles} checks it (exists, decodable,
+ * not truncated), then only the first plane is read, and {@link OpenedSeries#frame(int)} reads the
+ * C·Z planes of its time point. A PNG or a zipped TIFF is read whole. The memory check ({@link
+ * MemoryEstimate}) is made for one time point, not for the whole file, before any time point is
+ * read. Refused as by {@link ImageFiles}: 8-bit indexed colour, RGB with several channels, bit
+ * depths other than 8, 16, 24 and 32, frames of more than {@code Integer.MAX_VALUE - 64} voxels.
  *
  * <p>Stateless; the series returned are not thread-safe (see {@link OpenedSeries}).
  */

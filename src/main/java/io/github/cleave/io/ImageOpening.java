@@ -3,7 +3,6 @@ package io.github.cleave.io;
 import ij.ImagePlus;
 import ij.io.FileInfo;
 import ij.io.Opener;
-import ij.plugin.FileInfoVirtualStack;
 import io.github.cleave.image.BadInputException;
 import java.io.IOException;
 import java.nio.file.Files;
@@ -59,21 +58,23 @@ final class ImageOpening {
    * Opens {@code file} as a time-lapse may be opened: the same checks of the file as {@link #open},
    * but no refusal of time points and no memory check of the whole file (the caller checks per time
    * point). A TIFF is opened virtually: only its first plane is read now, every other plane when
-   * its stack asks for it ({@code ij.plugin.FileInfoVirtualStack}); a PNG or a zipped TIFF is read
-   * whole.
+   * its stack asks for it ({@link VirtualTiffs}); a PNG or a zipped TIFF is read whole.
    */
   static ImagePlus openForSeries(Path file, String role) {
     long length = checkFile(file, role);
     if (isTiff(file)) {
-      tiffInfos(file, role, length);
+      FileInfo[] infos = tiffInfos(file, role, length);
       ImagePlus imp;
       try {
-        imp = FileInfoVirtualStack.openVirtual(file.toAbsolutePath().toString());
+        imp = VirtualTiffs.open(file, infos);
       } catch (RuntimeException | LinkageError e) {
         throw new BadInputException(
             role + " file " + file + " is not a readable TIFF (corrupt or unsupported): " + e, e);
       }
-      if (imp == null || imp.getStackSize() < 1 || imp.getProcessor() == null) {
+      if (imp == null) {
+        return openWithImageJ(file, role);
+      }
+      if (imp.getStackSize() < 1 || imp.getProcessor() == null) {
         throw new BadInputException(
             role + " file " + file + " is not a readable TIFF (corrupt, truncated or unsupported)");
       }
