@@ -204,9 +204,12 @@ public final class ImageFiles {
     }
   }
 
-  /** The file's calibration when it has a real unit, else {@link VoxelSize#PIXELS}. */
+  /**
+   * The file's calibration when it has a real unit, else {@link VoxelSize#PIXELS} (also for a
+   * resolution without a unit name, as TIFF writers other than ImageJ's may store it).
+   */
   static VoxelSize voxelSize(Calibration cal) {
-    if (cal == null || !cal.scaled()) {
+    if (cal == null || !cal.scaled() || cal.getUnit() == null || cal.getUnit().isBlank()) {
       return VoxelSize.PIXELS;
     }
     double x = cal.pixelWidth;

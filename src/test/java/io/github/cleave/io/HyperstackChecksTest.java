@@ -7,11 +7,19 @@ import ij.ImagePlus;
 import ij.measure.Calibration;
 import io.github.cleave.image.BadInputException;
 import io.github.cleave.image.Raster;
+import io.github.cleave.image.VoxelSize;
+import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.attribute.FileTime;
 import java.util.Arrays;
+import java.util.SplittableRandom;
+import javax.imageio.IIOImage;
+import javax.imageio.ImageIO;
+import javax.imageio.ImageWriteParam;
+import javax.imageio.ImageWriter;
+import javax.imageio.stream.ImageOutputStream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -182,5 +190,49 @@ class HyperstackChecksTest {
     assertThat(s.frameCount()).isEqualTo(1);
     assertThat(s.firstFrame().raster().channel(0))
         .containsExactly(ImageFiles.read(file).raster().channel(0));
+  }
+
+  @Test
+  void tiffWithOneEntryPerPlaneFromAnotherWriterIsReadPlaneByPlane() throws IOException {
+    // Written by the JDK's own TIFF writer: one image entry per page, no ImageJ description.
+    SplittableRandom random = new SplittableRandom(101);
+    java.util.List<BufferedImage> pages = new java.util.ArrayList<>();
+    for (int p = 0; p < 3; p++) {
+      BufferedImage page = new BufferedImage(6, 4, BufferedImage.TYPE_BYTE_GRAY);
+      for (int y = 0; y < 4; y++) {
+        for (int x = 0; x < 6; x++) {
+          page.getRaster().setSample(x, y, 0, random.nextInt(256));
+        }
+      }
+      pages.add(page);
+    }
+    Path file = dir.resolve("pages.tif");
+    ImageWriter writer = ImageIO.getImageWritersByFormatName("tiff").next();
+    try (ImageOutputStream out = ImageIO.createImageOutputStream(file.toFile())) {
+      writer.setOutput(out);
+      ImageWriteParam param = writer.getDefaultWriteParam();
+      param.setCompressionMode(ImageWriteParam.MODE_EXPLICIT);
+      param.setCompressionType("LZW");
+      writer.prepareWriteSequence(null);
+      for (BufferedImage page : pages) {
+        writer.writeToSequence(new IIOImage(page, null, null), param);
+      }
+      writer.endWriteSequence();
+    } finally {
+      writer.dispose();
+    }
+
+    OpenedSeries s = Hyperstacks.openSeries(file, TimeAxis.SLICES_ARE_FRAMES);
+    assertThat(s.frameCount()).isEqualTo(3);
+    assertThat(s.voxelSize()).isEqualTo(VoxelSize.PIXELS); // a resolution without a unit name
+    assertThat(ImageFiles.read(file).raster().depth()).isEqualTo(3);
+    for (int t = 2; t >= 0; t--) {
+      float[] values = s.frame(t).channel(0);
+      for (int y = 0; y < 4; y++) {
+        for (int x = 0; x < 6; x++) {
+          assertThat(values[x + 6 * y]).isEqualTo(pages.get(t).getRaster().getSample(x, y, 0));
+        }
+      }
+    }
   }
 }
