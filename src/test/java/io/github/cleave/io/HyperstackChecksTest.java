@@ -106,6 +106,9 @@ class HyperstackChecksTest {
     long whole = ImageFiles.estimateHeapBytes(file);
     long available = 2 * perFrame;
     assertThat(whole).isGreaterThan(available); // the file as a whole would not fit
+    ImagePlus opened = ImageOpening.openForSeries(file, "image");
+    assertThat(opened.getStack().isVirtual()).isTrue(); // planes stay in the file until asked for
+    assertThat(opened.getNFrames()).isEqualTo(40);
 
     OpenedSeries s = Hyperstacks.openSeries(file, TimeAxis.AUTO, needed -> available);
     assertThat(Hyperstacks.bytesPerTimePoint(s)).isEqualTo(perFrame);
