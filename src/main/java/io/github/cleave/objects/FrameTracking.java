@@ -16,9 +16,9 @@ import java.util.Locale;
  *       has no choice.
  *   <li>A previous object p chosen by several objects goes to the one with the largest overlap with
  *       it, ties to the object with the lower input number c; that object takes the number p.
- *   <li>Every other object (no choice, or outbid) gets a new number: {@code firstNewNumber},
- *       {@code firstNewNumber + 1}, ... in the order of their input numbers c. A losing object does
- *       not fall back on its second choice.
+ *   <li>Every other object (no choice, or outbid) gets a new number: {@code firstNewNumber}, {@code
+ *       firstNewNumber + 1}, ... in the order of their input numbers c. A losing object does not
+ *       fall back on its second choice.
  * </ol>
  *
  * Consequences: no two objects of a frame share a number; a previous object that nothing overlaps

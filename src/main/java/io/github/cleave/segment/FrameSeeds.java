@@ -20,10 +20,10 @@ import java.util.Locale;
  *       decides there.
  *   <li><b>Background seeds</b>: the voxels farther than {@code backgroundMargin} and at most
  *       {@code backgroundReach} from the nearest previous foreground voxel: a band around the
- *       previous objects that stops the cut from leaking out of them, while a cell appearing farther
- *       away (entering the field of view, drifting into focus) can still be found by the model. An
- *       infinite reach makes every voxel beyond the margin background. A previous frame without
- *       objects gives no seeds at all.
+ *       previous objects that stops the cut from leaking out of them, while a cell appearing
+ *       farther away (entering the field of view, drifting into focus) can still be found by the
+ *       model. An infinite reach makes every voxel beyond the margin background. A previous frame
+ *       without objects gives no seeds at all.
  * </ul>
  *
  * <p>Distances are exact Euclidean distances between voxel centres in calibrated units ({@link
@@ -33,13 +33,14 @@ import java.util.Locale;
  * nor as objects.
  *
  * <p>Defaults ({@link #defaults()}): foreground margin {@value #DEFAULT_FOREGROUND_MARGIN} px,
- * background margin {@value #DEFAULT_BACKGROUND_MARGIN} px, reach {@value #DEFAULT_BACKGROUND_REACH}
- * px. A time-lapse of cells or nuclei is usually sampled so that an object moves by a small part of
- * its own radius between frames, a few pixels at most (otherwise no overlap-based tracking could
- * follow it); the margins add about a pixel for a change of size or shape and a pixel for the
- * uncertainty of the previous boundary itself. The background margin is the larger because cells
- * more often grow than shrink between frames. Objects narrower than about twice the foreground margin (8 px) give no foreground seed. These are common
- * practice, no source; set larger margins for faster motion.
+ * background margin {@value #DEFAULT_BACKGROUND_MARGIN} px, reach {@value
+ * #DEFAULT_BACKGROUND_REACH} px. A time-lapse of cells or nuclei is usually sampled so that an
+ * object moves by a small part of its own radius between frames, a few pixels at most (otherwise no
+ * overlap-based tracking could follow it); the margins add about a pixel for a change of size or
+ * shape and a pixel for the uncertainty of the previous boundary itself. The background margin is
+ * the larger because cells more often grow than shrink between frames. Objects narrower than about
+ * twice the foreground margin (8 px) give no foreground seed. These are common practice, no source;
+ * set larger margins for faster motion.
  *
  * <p>O(N) time and memory plus the bounding boxes of the objects. Immutable, thread-safe.
  *
