@@ -191,7 +191,8 @@ class FrameSeedsTest {
     assertThat(lastOfFirst).isEqualTo(15); // x 16..19 lie within 4 px of object 2
     assertThat(firstOfSecond).isEqualTo(24);
     assertThat(seeds.label(0)).isEqualTo(SeedLabels.NONE);
-    assertThat(seeds.label(w - 1)).isEqualTo(SeedLabels.NONE); // 2.8 px from object 2, within the margin
+    assertThat(seeds.label(w - 1))
+        .isEqualTo(SeedLabels.NONE); // 2.8 px from object 2, within the margin
     assertThat(rule.from(new int[w * h], w, h, 1, VoxelSize.PIXELS).maxLabel()).isZero();
   }
 
