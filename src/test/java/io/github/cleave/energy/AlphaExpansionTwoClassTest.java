@@ -18,10 +18,10 @@ import org.junit.jupiter.api.Test;
  * lowers is a global minimum (from the union and intersection with any optimum, by submodularity:
  * Kolmogorov and Zabih, IEEE TPAMI 26(2), 2004, for the submodular inequality). So the energy
  * reached equals the flow value of the cut (max-flow min-cut theorem), and the mask (class 1 =
- * foreground) contains the cut's minimal source set, equal to it unless minimum cuts tie. With these
- * seeds 98 of the 100 masks are identical; the two others are tied cuts of the same energy (the
- * expansion keeps a labelling unless a move lowers the energy strictly, so it need not end on the
- * smallest foreground).
+ * foreground) contains the cut's minimal source set, equal to it unless minimum cuts tie. With
+ * these seeds 98 of the 100 masks are identical; the two others are tied cuts of the same energy
+ * (the expansion keeps a labelling unless a move lowers the energy strictly, so it need not end on
+ * the smallest foreground).
  */
 class AlphaExpansionTwoClassTest {
 
