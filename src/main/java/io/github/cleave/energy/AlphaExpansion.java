@@ -34,8 +34,9 @@ import java.util.concurrent.CancellationException;
  * <h2>Cost</h2>
  *
  * Each move builds a new grid solver, O(n · K_nb) plus its solve; a run is at most {@code maxCycles
- * · K} moves, in practice two to four cycles. Memory: one grid solver, four int arrays of n and a
- * few labellings of n bytes, besides the energy itself.
+ * · K} moves, in practice two to four cycles. Memory: one grid solver at a time (with its
+ * capacities kept when assertions are on), two int arrays of n for its terminals, and a few
+ * labellings of n bytes, besides the energy itself.
  *
  * <p>Interruption: the thread's interrupt flag is checked before every move and inside every solve;
  * it ends the run with {@link CancellationException}, the flag left set. Stateless and thread-safe

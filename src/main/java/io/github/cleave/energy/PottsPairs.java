@@ -72,11 +72,6 @@ final class PottsPairs {
     return largest;
   }
 
-  /** Number of voxels. */
-  int size() {
-    return weight.length == 0 ? width * height * depth : weight[0].length;
-  }
-
   /** First x whose neighbour in direction k has an x inside the grid. */
   int firstX(int k) {
     return Math.min(width, Math.max(0, -neighborhood.dx(k)));
