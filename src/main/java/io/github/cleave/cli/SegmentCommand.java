@@ -25,8 +25,10 @@ import picocli.CommandLine.Spec;
           + " the seed strokes, computes the minimum cut, forms and measures objects, and writes"
           + " NAME.mask.tif, NAME.labels.tif, NAME.objects.csv, NAME.rois.zip, NAME.overlay.png"
           + " and NAME.record.json into the output folder.",
-      "Seeds: a seed label image (0 none, 1 foreground, 2 background) or an ImageJ ROI zip whose"
-          + " ROI names start with 'foreground'/'fg' or 'background'/'bg'.",
+      "Seeds: a seed label image (0 none, 1 foreground, 2 background, 3.. further classes) or an"
+          + " ImageJ ROI zip whose ROI names start with 'foreground'/'fg', 'background'/'bg' or"
+          + " 'classN'. Seeds of three or more classes segment every class (alpha-expansion) and"
+          + " add NAME.classes.tif and a class column.",
       "Exit codes: 0 done; 2 bad arguments or unusable input; 130 interrupted."
     })
 final class SegmentCommand implements Callable<Integer> {

@@ -12,6 +12,7 @@ import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Arrays;
 import java.util.Collection;
 import java.util.Iterator;
 import java.util.Locale;
@@ -72,6 +73,34 @@ public final class ImageOutputs {
       stack.addSlice(null, new ByteProcessor(width, height, p));
     }
     writeTiff(file, stack, depth, voxelSize, "mask");
+  }
+
+  /**
+   * Writes a class map as an 8-bit TIFF (class 1..K per voxel, the seed label contract).
+   *
+   * @param classes {@code width * height * depth} values in {@code 1..classCount}
+   * @throws IllegalArgumentException if the array length or a value is wrong
+   * @throws IOException if the file cannot be written; nothing is left behind then
+   */
+  public static void writeClassMap(
+      Path file, byte[] classes, int classCount, int width, int height, int depth, VoxelSize size)
+      throws IOException {
+    int plane = checkSize(classes.length, width, height, depth, "class map");
+    for (int i = 0; i < classes.length; i++) {
+      int c = classes[i] & 0xff;
+      if (c < 1 || c > classCount) {
+        throw new IllegalArgumentException(
+            "class " + c + " at index " + i + "; a class map holds 1.." + classCount);
+      }
+    }
+    ImageStack stack = new ImageStack(width, height);
+    for (int z = 0; z < depth; z++) {
+      stack.addSlice(
+          null,
+          new ByteProcessor(
+              width, height, Arrays.copyOfRange(classes, z * plane, (z + 1) * plane)));
+    }
+    writeTiff(file, stack, depth, size, "classes");
   }
 
   /**

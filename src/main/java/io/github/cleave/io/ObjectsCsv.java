@@ -16,19 +16,29 @@ import java.util.Locale;
  * cN_mean, cN_min, cN_max, cN_integrated_U2, cN_raw_sum}; for a stack {@code voxels, volume_U3}, a
  * z centroid, {@code box_z, box_depth}, {@code surface_U2} and {@code cN_integrated_U3}. {@code U}
  * is the calibration unit in ASCII ({@code µm} becomes {@code um}); box columns are in pixels,
- * 0-based.
+ * 0-based. A segmentation into three or more classes adds a {@code class} column (the seed label of
+ * the object's class) after {@code object}.
  */
 public final class ObjectsCsv {
   private ObjectsCsv() {}
 
   /** The header row (without line end). */
   public static String header(boolean stack, String unit, int[] channels, boolean withFile) {
+    return header(stack, unit, channels, withFile, false);
+  }
+
+  /** The header row (without line end), with a {@code class} column if {@code withClass}. */
+  public static String header(
+      boolean stack, String unit, int[] channels, boolean withFile, boolean withClass) {
     String u = asciiUnit(unit);
     StringBuilder sb = new StringBuilder();
     if (withFile) {
       sb.append("file,");
     }
     sb.append("object,");
+    if (withClass) {
+      sb.append("class,");
+    }
     if (stack) {
       sb.append("voxels,volume_").append(u).append("3,");
       sb.append("centroid_x_").append(u).append(",centroid_y_").append(u);
@@ -50,11 +60,20 @@ public final class ObjectsCsv {
 
   /** One row (without line end); {@code file} is null unless the table has a file column. */
   public static String row(ObjectMeasurement m, boolean stack, String file) {
+    return row(m, stack, file, 0);
+  }
+
+  /** One row, with the object's class in a {@code class} column unless {@code objectClass} is 0. */
+  public static String row(ObjectMeasurement m, boolean stack, String file, int objectClass) {
     StringBuilder sb = new StringBuilder();
     if (file != null) {
       sb.append(quoted(file)).append(',');
     }
-    sb.append(m.label()).append(',').append(m.voxelCount()).append(',');
+    sb.append(m.label()).append(',');
+    if (objectClass != 0) {
+      sb.append(objectClass).append(',');
+    }
+    sb.append(m.voxelCount()).append(',');
     sb.append(number(m.areaOrVolume())).append(',');
     sb.append(number(m.centroidX())).append(',').append(number(m.centroidY())).append(',');
     if (stack) {
@@ -80,9 +99,24 @@ public final class ObjectsCsv {
   /** The whole table for one image, with line ends {@code \n}. */
   public static String table(
       List<ObjectMeasurement> measurements, boolean stack, String unit, int[] channels) {
-    StringBuilder sb = new StringBuilder(header(stack, unit, channels, false)).append('\n');
+    return table(measurements, stack, unit, channels, null);
+  }
+
+  /**
+   * The whole table, with a {@code class} column when {@code objectClasses} (the class of object i
+   * + 1 at index i) is not null.
+   */
+  public static String table(
+      List<ObjectMeasurement> measurements,
+      boolean stack,
+      String unit,
+      int[] channels,
+      int[] objectClasses) {
+    StringBuilder sb =
+        new StringBuilder(header(stack, unit, channels, false, objectClasses != null)).append('\n');
     for (ObjectMeasurement m : measurements) {
-      sb.append(row(m, stack, null)).append('\n');
+      int c = objectClasses == null ? 0 : objectClasses[m.label() - 1];
+      sb.append(row(m, stack, null, c)).append('\n');
     }
     return sb.toString();
   }

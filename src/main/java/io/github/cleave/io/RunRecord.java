@@ -5,6 +5,7 @@ import com.google.gson.GsonBuilder;
 import com.google.gson.JsonArray;
 import com.google.gson.JsonObject;
 import io.github.cleave.image.Raster;
+import io.github.cleave.segment.ClassMap;
 import io.github.cleave.segment.PhaseTimings;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.SegmentationModel;
@@ -68,6 +69,15 @@ final class RunRecord {
     out.addProperty("energyNats", result.energy());
     out.addProperty("foregroundVoxels", result.foregroundCount());
     out.addProperty("objects", result.objects().count());
+    if (result.isMultiClass()) {
+      ClassMap classes = result.classes();
+      out.addProperty("classes", classes.classCount());
+      JsonObject perClass = new JsonObject();
+      for (int c : classes.objectForming()) {
+        perClass.addProperty(Integer.toString(c), classes.objectCount(c));
+      }
+      out.add("objectsPerClass", perClass);
+    }
     o.add("result", out);
     PhaseTimings t = result.timings();
     JsonObject ms = new JsonObject();

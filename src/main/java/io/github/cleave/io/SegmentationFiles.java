@@ -7,6 +7,7 @@ import io.github.cleave.image.SeedLabels;
 import io.github.cleave.objects.RoiExport;
 import io.github.cleave.render.DisplayRange;
 import io.github.cleave.render.OverlayPicture;
+import io.github.cleave.segment.ClassMap;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.SegmentationModel;
 import java.awt.image.BufferedImage;
@@ -23,7 +24,9 @@ import java.util.List;
  * {@code NAME.objects.csv}, {@code NAME.rois.zip}, {@code NAME.overlay.png} (the cut as a thin
  * contour over the image, strokes in their colours) and, last, {@code NAME.record.json} (settings,
  * versions, timings, checksums): a record present means every other output of that image is
- * complete. Every file is written atomically; none may be an input file.
+ * complete. A segmentation into three or more classes adds {@code NAME.classes.tif} (8-bit, the
+ * class 1..K of every voxel), a {@code class} column in the table and each ROI in the group of its
+ * class. Every file is written atomically; none may be an input file.
  */
 public final class SegmentationFiles {
   private SegmentationFiles() {}
@@ -126,22 +129,32 @@ public final class SegmentationFiles {
     Path rois = outDir.resolve(name + ".rois.zip");
     Path overlay = outDir.resolve(name + ".overlay.png");
     Path record = recordFile(outDir, name);
-    for (Path p : List.of(mask, labels, csv, rois, overlay, record)) {
+    Path classMap = outDir.resolve(name + ".classes.tif");
+    for (Path p : List.of(mask, labels, csv, rois, overlay, record, classMap)) {
       ImageOutputs.checkNotInput(p, protectedFiles);
     }
+    ClassMap classes = result.classes();
+    int[] objectClasses = classes == null ? null : classes.objectClasses();
     Files.deleteIfExists(record); // an old record must not vouch for outputs being replaced
     ImageOutputs.writeMask(mask, result.mask(), w, h, d, result.voxelSize());
     ImageOutputs.writeLabels(
         labels, result.objects().labels(), result.objects().count(), w, h, d, result.voxelSize());
+    if (classes != null) {
+      ImageOutputs.writeClassMap(
+          classMap, classes.labels(), classes.classCount(), w, h, d, result.voxelSize());
+    } else {
+      Files.deleteIfExists(classMap); // left by an earlier run with more classes
+    }
     byte[] table =
         ObjectsCsv.table(
                 result.measurements(),
                 d > 1,
                 result.voxelSize().unit(),
-                measuredChannels(result, raster))
+                measuredChannels(result, raster),
+                objectClasses)
             .getBytes(StandardCharsets.UTF_8);
     AtomicFiles.write(csv, out -> out.write(table));
-    byte[] zip = RoiExport.roiZip(result.objects());
+    byte[] zip = RoiExport.roiZip(result.objects(), objectClasses);
     AtomicFiles.write(rois, out -> out.write(zip));
     BufferedImage picture =
         OverlayPicture.render(

@@ -42,9 +42,18 @@ public final class RoiExport {
 
   /** The ROI zip of all objects, as bytes. */
   public static byte[] roiZip(ObjectLabels labels) {
+    return roiZip(labels, null);
+  }
+
+  /**
+   * The ROI zip of all objects, as bytes, each ROI in the group of its object's class ({@code
+   * objectClasses[i]} for object i + 1; ImageJ's {@code Roi.setGroup}, 1..255) when {@code
+   * objectClasses} is not null.
+   */
+  public static byte[] roiZip(ObjectLabels labels, int[] objectClasses) {
     ByteArrayOutputStream bytes = new ByteArrayOutputStream();
     try (ZipOutputStream zip = new ZipOutputStream(bytes)) {
-      for (Roi roi : rois(labels)) {
+      for (Roi roi : rois(labels, objectClasses)) {
         ZipEntry entry = new ZipEntry(roi.getName() + ".roi");
         entry.setTimeLocal(STAMP);
         zip.putNextEntry(entry);
@@ -59,6 +68,11 @@ public final class RoiExport {
 
   /** The ROIs of all objects, named and positioned, in zip order. */
   public static List<Roi> rois(ObjectLabels labels) {
+    return rois(labels, null);
+  }
+
+  /** As {@link #rois(ObjectLabels)}, grouped by class when {@code objectClasses} is not null. */
+  public static List<Roi> rois(ObjectLabels labels, int[] objectClasses) {
     int w = labels.width();
     int h = labels.height();
     int d = labels.depth();
@@ -118,6 +132,9 @@ public final class RoiExport {
           roi.setPosition(z + 1);
         }
         roi.setName(name);
+        if (objectClasses != null) {
+          roi.setGroup(objectClasses[l - 1]);
+        }
         out.add(roi);
       }
     }

@@ -44,6 +44,9 @@ import java.util.Locale;
  *
  * <p>O(N) time and memory plus the bounding boxes of the objects. Immutable, thread-safe.
  *
+ * <p>After a segmentation into several classes, each object's seeds take the object's class ({@link
+ * #from(Segmentation)}).
+ *
  * @param foregroundMargin erosion of each previous object, in pixels (x size), ≥ 0
  * @param backgroundMargin distance from the previous foreground below which no background seed is
  *     set, in pixels, ≥ 0
@@ -94,6 +97,26 @@ public record FrameSeeds(double foregroundMargin, double backgroundMargin, doubl
   /** Seeds (1 foreground, 2 background) from the objects of the previous frame. */
   public SeedLabels from(ObjectLabels previous, VoxelSize size) {
     return from(previous.labels(), previous.width(), previous.height(), previous.depth(), size);
+  }
+
+  /**
+   * Seeds from the previous frame's segmentation: each object's seed voxels take its class (1 for a
+   * two-class segmentation, {@link ClassMap#classOf} otherwise), the background band 2.
+   */
+  public SeedLabels from(Segmentation previous) {
+    ObjectLabels objects = previous.objects();
+    SeedLabels seeds = from(objects, previous.voxelSize());
+    if (!previous.isMultiClass()) {
+      return seeds;
+    }
+    byte[] labels = seeds.labels();
+    int[] numbers = objects.labels();
+    for (int i = 0; i < labels.length; i++) {
+      if (labels[i] == SeedLabels.FOREGROUND) {
+        labels[i] = (byte) previous.classes().classOf(numbers[i]);
+      }
+    }
+    return seeds;
   }
 
   /**

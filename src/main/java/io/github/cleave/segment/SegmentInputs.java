@@ -11,9 +11,10 @@ import java.util.Locale;
 
 /**
  * What the pipeline resolves from its inputs before it computes anything: seeds that fit the image
- * and use only the classes this version cuts, the calibration to use (the file's, or the assumed
- * one, with a warning), the driving and measured channels, and the neighbourhood. Every refusal is
- * a {@link BadInputException} with a message for the user. Stateless.
+ * (any number of classes; the learner checks that none is missing), the calibration to use (the
+ * file's, or the assumed one, with a warning), the driving and measured channels, and the
+ * neighbourhood. Every refusal is a {@link BadInputException} with a message for the user.
+ * Stateless.
  */
 final class SegmentInputs {
   private SegmentInputs() {}
@@ -32,13 +33,21 @@ final class SegmentInputs {
               image.height(),
               image.depth()));
     }
+    return seeds;
+  }
+
+  /** The seeds, after checking that they use no class the model does not know. */
+  static SeedLabels checkSeedClasses(SeedLabels seeds, int modelClasses) {
     int max = seeds.maxLabel();
-    if (max > SeedLabels.BACKGROUND) {
+    if (max > modelClasses) {
       throw new BadInputException(
-          "the seeds use class label "
-              + max
-              + "; this version segments foreground (1) against background (2) only: relabel"
-              + " further classes as 1 or 2");
+          String.format(
+              Locale.ROOT,
+              "the seeds use class label %d but the model knows classes 1 to %d: use seed labels"
+                  + " of the model's classes, or learn a model with %d classes",
+              max,
+              modelClasses,
+              max));
     }
     return seeds;
   }

@@ -23,6 +23,10 @@ import java.util.List;
  * @param timings per-phase wall-clock times
  * @param warnings things the user should know (assumed calibration, calibration differing from the
  *     model's, flattening decisions)
+ * @param classes the classes of a segmentation into three or more classes, {@code null} for
+ *     foreground against background; when present, the mask is every kept object of every class but
+ *     the background, the energy and flow value are those of the Potts energy's minimum found
+ *     (there is no single cut), and each object's class is {@link ClassMap#classOf}
  */
 public record Segmentation(
     byte[] mask,
@@ -33,11 +37,17 @@ public record Segmentation(
     SegmentationModel model,
     VoxelSize voxelSize,
     PhaseTimings timings,
-    List<String> warnings) {
+    List<String> warnings,
+    ClassMap classes) {
 
   public Segmentation {
     measurements = List.copyOf(measurements);
     warnings = List.copyOf(warnings);
+  }
+
+  /** Whether this is a segmentation into three or more classes ({@link #classes} present). */
+  public boolean isMultiClass() {
+    return classes != null;
   }
 
   /** The number of foreground voxels. */

@@ -68,9 +68,13 @@ public final class Segmenter {
   public static SegmentationModel learn(
       Raster image, SeedLabels seeds, SegmentationSettings settings) {
     Learned learned = learnWithFeatures(image, seeds, settings);
-    RefinedCut.Outcome refined =
-        refinedCut(learned.model, learned.calibrated, seeds, learned.features);
-    return learned.model.withLikelihood(refined.likelihood());
+    SegmentationModel model = learned.model;
+    if (model.likelihood().classCount() > 2) {
+      return model.withLikelihood(
+          MultiClassCut.run(model, learned.calibrated, seeds, learned.features).likelihood());
+    }
+    RefinedCut.Outcome refined = refinedCut(model, learned.calibrated, seeds, learned.features);
+    return model.withLikelihood(refined.likelihood());
   }
 
   /**
@@ -94,7 +98,8 @@ public final class Segmenter {
     SeedLabels hard =
         seeds == null
             ? SeedLabels.empty(image.width(), image.height(), image.depth())
-            : SegmentInputs.checkSeeds(image, seeds);
+            : SegmentInputs.checkSeedClasses(
+                SegmentInputs.checkSeeds(image, seeds), model.likelihood().classCount());
     List<String> warnings = new ArrayList<>();
     VoxelSize size = SegmentInputs.resolveVoxelSize(image, model.settings(), warnings);
     if (size.differsFrom(model.voxelSize())) {
@@ -210,6 +215,10 @@ public final class Segmenter {
       double flattenMs,
       double learnMs,
       List<String> warnings) {
+    if (model.likelihood().classCount() > 2) {
+      return MultiClassSegmenter.applyTo(
+          model, image, seeds, features, flattenMs, learnMs, warnings);
+    }
     SegmentationSettings settings = model.settings();
     EnergyParameters parameters = energyParameters(model, image);
     RefinedCut.Outcome refined = refinedCut(model, image, seeds, features);
@@ -257,10 +266,11 @@ public final class Segmenter {
             cut.solveMs + edges.solveMs,
             objectsMs,
             measureMs),
-        warnings);
+        warnings,
+        null);
   }
 
-  private static EnergyParameters energyParameters(SegmentationModel model, Raster image) {
+  static EnergyParameters energyParameters(SegmentationModel model, Raster image) {
     SegmentationSettings settings = model.settings();
     Neighborhood nb = SegmentInputs.neighborhood(image, settings);
     return new EnergyParameters(

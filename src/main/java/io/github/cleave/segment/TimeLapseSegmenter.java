@@ -5,7 +5,6 @@ import io.github.cleave.image.FrameSeries;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.objects.FrameTracking;
-import io.github.cleave.objects.ObjectLabels;
 import java.util.Arrays;
 import java.util.Locale;
 import java.util.concurrent.CancellationException;
@@ -55,7 +54,65 @@ public final class TimeLapseSegmenter {
       int seedFrame,
       SegmentationSettings settings,
       TimeLapseOptions options) {
+    checkFrame(seedFrame, frames.frameCount());
+    checkInterrupt(seedFrame);
+    Raster first = frames.frame(seedFrame);
+    Segmentation seeded = Segmenter.segment(first, seeds, settings);
+    return track(frames, seedFrame, new Shape(first), seeded, seeded.model(), options);
+  }
+
+  /**
+   * Applies a saved model to every frame: frame {@code startFrame} with {@code seeds} (may be null)
+   * as hard constraints, every other frame as in {@link #segment}, seeded from its neighbour.
+   *
+   * @throws BadInputException if {@code startFrame} is not a frame, the image does not fit the
+   *     model (see {@link Segmenter#apply}), or a frame differs in size or channels from the first
+   * @throws CancellationException if the thread is interrupted
+   */
+  public static TimeLapseResult apply(
+      SegmentationModel model,
+      FrameSeries frames,
+      SeedLabels seeds,
+      int startFrame,
+      TimeLapseOptions options) {
+    checkFrame(startFrame, frames.frameCount());
+    checkInterrupt(startFrame);
+    Raster first = frames.frame(startFrame);
+    Segmentation start = Segmenter.apply(model, first, seeds);
+    return track(frames, startFrame, new Shape(first), start, model, options);
+  }
+
+  /** Every frame after {@code first} (frame {@code s}, done), forward then backward. */
+  private static TimeLapseResult track(
+      FrameSeries frames,
+      int s,
+      Shape shape,
+      Segmentation first,
+      SegmentationModel model,
+      TimeLapseOptions options) {
     int count = frames.frameCount();
+    TimeLapseFrame[] done = new TimeLapseFrame[count];
+    int n = first.objects().count();
+    int[] identity = new int[n + 1];
+    for (int k = 0; k <= n; k++) {
+      identity[k] = k;
+    }
+    done[s] = TimeLapseFrame.of(s, first, identity);
+    int finished = 1;
+    options.listener().frameDone(s, finished);
+    int next = n + 1;
+    for (int t = s + 1; t < count; t++) {
+      next = step(frames, t, done[t - 1], shape, model, options, done, next);
+      options.listener().frameDone(t, ++finished);
+    }
+    for (int t = s - 1; t >= 0; t--) {
+      next = step(frames, t, done[t + 1], shape, model, options, done, next);
+      options.listener().frameDone(t, ++finished);
+    }
+    return new TimeLapseResult(Arrays.asList(done), s, model, next);
+  }
+
+  private static void checkFrame(int seedFrame, int count) {
     if (seedFrame < 0 || seedFrame >= count) {
       throw new BadInputException(
           String.format(
@@ -65,31 +122,6 @@ public final class TimeLapseSegmenter {
               seedFrame + 1,
               count));
     }
-    checkInterrupt(seedFrame);
-    Raster first = frames.frame(seedFrame);
-    Shape shape = new Shape(first);
-    Segmentation seeded = Segmenter.segment(first, seeds, settings);
-    first = null; // one frame at a time
-    SegmentationModel model = seeded.model();
-    TimeLapseFrame[] done = new TimeLapseFrame[count];
-    int n = seeded.objects().count();
-    int[] identity = new int[n + 1];
-    for (int k = 0; k <= n; k++) {
-      identity[k] = k;
-    }
-    done[seedFrame] = TimeLapseFrame.of(seedFrame, seeded, identity);
-    int finished = 1;
-    options.listener().frameDone(seedFrame, finished);
-    int next = n + 1;
-    for (int t = seedFrame + 1; t < count; t++) {
-      next = step(frames, t, done[t - 1], shape, model, options, done, next);
-      options.listener().frameDone(t, ++finished);
-    }
-    for (int t = seedFrame - 1; t >= 0; t--) {
-      next = step(frames, t, done[t + 1], shape, model, options, done, next);
-      options.listener().frameDone(t, ++finished);
-    }
-    return new TimeLapseResult(Arrays.asList(done), seedFrame, model, next);
   }
 
   /** Segments frame {@code t} from its neighbour {@code from}; returns the next free number. */
@@ -105,11 +137,8 @@ public final class TimeLapseSegmenter {
     checkInterrupt(t);
     Raster image = frames.frame(t);
     reference.check(image, t);
-    ObjectLabels previous = from.segmentation().objects();
     SeedLabels hard =
-        options.seedsFromNeighbour()
-            ? options.frameSeeds().from(previous, from.segmentation().voxelSize())
-            : null;
+        options.seedsFromNeighbour() ? options.frameSeeds().from(from.segmentation()) : null;
     Segmentation result = Segmenter.apply(model, image, hard);
     FrameTracking.Renumbering numbers =
         FrameTracking.match(from.trackedLabels(), result.objects(), next);
