@@ -1,6 +1,8 @@
 package io.github.cleave.cli;
 
+import io.github.cleave.io.Hyperstacks;
 import io.github.cleave.io.ModelFiles;
+import io.github.cleave.io.OpenedSeries;
 import io.github.cleave.io.SegmentationFiles;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.SegmentationModel;
@@ -36,11 +38,17 @@ final class ApplyCommand implements Callable<Integer> {
 
   @Mixin OutputFolderOption output;
 
+  @Mixin TimeOptions time;
+
   @Spec CommandSpec spec;
 
   @Override
   public Integer call() throws Exception {
     SegmentationModel m = ModelFiles.read(model);
+    OpenedSeries series = Hyperstacks.openSeries(input.image, time.axis());
+    if (series.frameCount() > 1) {
+      return TimeLapseRun.apply(spec, series, input, output, time, m, model);
+    }
     ImageInputs.ImageWithSeeds in =
         input.seeds == null
             ? new ImageInputs.ImageWithSeeds(

@@ -1,6 +1,8 @@
 package io.github.cleave.cli;
 
+import io.github.cleave.io.Hyperstacks;
 import io.github.cleave.io.ModelFiles;
+import io.github.cleave.io.OpenedSeries;
 import io.github.cleave.io.SegmentationFiles;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.Segmenter;
@@ -44,11 +46,17 @@ final class SegmentCommand implements Callable<Integer> {
 
   @Mixin OutputFolderOption output;
 
+  @Mixin TimeOptions time;
+
   @Spec CommandSpec spec;
 
   @Override
   public Integer call() throws Exception {
     var settings = options.settings();
+    OpenedSeries series = Hyperstacks.openSeries(input.image, time.axis());
+    if (series.frameCount() > 1) {
+      return TimeLapseRun.segment(spec, series, input, output, time, settings, saveModel);
+    }
     ImageInputs.ImageWithSeeds in = ImageInputs.read(input.image, input.seeds, true);
     SegmentationFiles.Inputs inputs =
         new SegmentationFiles.Inputs(input.image, in.seedFile(), null);

@@ -121,6 +121,22 @@ public final class ObjectsCsv {
     return sb.toString();
   }
 
+  /**
+   * The rows of one time point, each led by {@code frame + 1}: objects in their order in {@code
+   * measurements}, with a class column when {@code classOf} (tracked number to class) is not null.
+   */
+  public static void frameRows(
+      StringBuilder out,
+      int frame,
+      List<ObjectMeasurement> measurements,
+      boolean stack,
+      java.util.function.IntUnaryOperator classOf) {
+    for (ObjectMeasurement m : measurements) {
+      int c = classOf == null ? 0 : classOf.applyAsInt(m.label());
+      out.append(frame + 1).append(',').append(row(m, stack, null, c)).append('\n');
+    }
+  }
+
   /** A number with six decimals, dot decimal separator. */
   static String number(double v) {
     if (Double.isNaN(v)) {

@@ -34,6 +34,18 @@ final class RunRecord {
       Segmentation result,
       String command)
       throws IOException {
+    return json(name, image, inputs, result, command, null);
+  }
+
+  /** The record, with a {@code timeLapse} section when {@code timeLapse} is not null. */
+  static byte[] json(
+      String name,
+      LoadedImage image,
+      SegmentationFiles.Inputs inputs,
+      Segmentation result,
+      String command,
+      JsonObject timeLapse)
+      throws IOException {
     JsonObject o = new JsonObject();
     o.addProperty("format", "cleave-record");
     o.addProperty("formatVersion", 1);
@@ -93,6 +105,9 @@ final class RunRecord {
     JsonArray warnings = new JsonArray();
     result.warnings().forEach(warnings::add);
     o.add("warnings", warnings);
+    if (timeLapse != null) {
+      o.add("timeLapse", timeLapse);
+    }
     return (GSON.toJson(o) + "\n").getBytes(StandardCharsets.UTF_8);
   }
 

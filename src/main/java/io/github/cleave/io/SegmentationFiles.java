@@ -25,8 +25,8 @@ import java.util.List;
  * contour over the image, strokes in their colours) and, last, {@code NAME.record.json} (settings,
  * versions, timings, checksums): a record present means every other output of that image is
  * complete. A segmentation into three or more classes adds {@code NAME.classes.tif} (8-bit, the
- * class 1..K of every voxel), a {@code class} column in the table and each ROI in the group of its
- * class. Every file is written atomically; none may be an input file.
+ * class 1..K of every voxel), a {@code class} column in the table, and ROI names ending in {@code
+ * -classN}. Every file is written atomically; none may be an input file.
  */
 public final class SegmentationFiles {
   private SegmentationFiles() {}
@@ -185,18 +185,22 @@ public final class SegmentationFiles {
   }
 
   static int[] measuredChannels(Segmentation result, Raster raster) {
+    return measuredChannels(result, raster.channelCount());
+  }
+
+  static int[] measuredChannels(Segmentation result, int channelCount) {
     int[] chosen = result.model().settings().measuredChannels();
     if (chosen != null) {
       return chosen;
     }
-    int[] all = new int[raster.channelCount()];
+    int[] all = new int[channelCount];
     for (int c = 0; c < all.length; c++) {
       all[c] = c;
     }
     return all;
   }
 
-  private static List<Path> inputList(Inputs inputs) {
+  static List<Path> inputList(Inputs inputs) {
     List<Path> list = new ArrayList<>();
     for (Path p : new Path[] {inputs.image(), inputs.seeds(), inputs.model()}) {
       if (p != null) {

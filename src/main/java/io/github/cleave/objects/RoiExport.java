@@ -46,14 +46,18 @@ public final class RoiExport {
   }
 
   /**
-   * The ROI zip of all objects, as bytes, each ROI in the group of its object's class ({@code
-   * objectClasses[i]} for object i + 1; ImageJ's {@code Roi.setGroup}, 1..255) when {@code
-   * objectClasses} is not null.
+   * The ROI zip of all objects, as bytes, each ROI's name ending in its object's class ({@code
+   * -class3}; {@code objectClasses[i]} for object i + 1) when {@code objectClasses} is not null.
    */
   public static byte[] roiZip(ObjectLabels labels, int[] objectClasses) {
+    return zip(rois(labels, objectClasses));
+  }
+
+  /** A ROI zip of {@code rois} in their order, entries named {@code NAME.roi}, as bytes. */
+  public static byte[] zip(List<Roi> rois) {
     ByteArrayOutputStream bytes = new ByteArrayOutputStream();
     try (ZipOutputStream zip = new ZipOutputStream(bytes)) {
-      for (Roi roi : rois(labels, objectClasses)) {
+      for (Roi roi : rois) {
         ZipEntry entry = new ZipEntry(roi.getName() + ".roi");
         entry.setTimeLocal(STAMP);
         zip.putNextEntry(entry);
@@ -66,12 +70,45 @@ public final class RoiExport {
     return bytes.toByteArray();
   }
 
+  /**
+   * The ROIs of one time point of a time-lapse: those of {@link #rois(ObjectLabels, int[])}, named
+   * by their tracked number and time point ({@code object-0012-t0003}, {@code
+   * object-0012-z0004-t0003} in a stack, {@code object-0012-t0003-class3} with classes) and placed
+   * at hyperstack position (all channels, their plane, time point {@code frame + 1}).
+   *
+   * @param numberOf {@code numberOf[k]} is the tracked number of object k of {@code labels}
+   * @param frame the time point, 0-based
+   */
+  public static List<Roi> roisOfFrame(
+      ObjectLabels labels, int[] objectClasses, int[] numberOf, int frame) {
+    List<Roi> out = rois(labels, objectClasses);
+    for (Roi roi : out) {
+      String name = roi.getName(); // object-NNNN, then -zZZZZ and -classN where they apply
+      int dash = name.indexOf('-', "object-".length());
+      int own =
+          Integer.parseInt(name.substring("object-".length(), dash < 0 ? name.length() : dash));
+      String suffix = dash < 0 ? "" : name.substring(dash);
+      int cls = suffix.indexOf("-class");
+      String plane = cls < 0 ? suffix : suffix.substring(0, cls);
+      String classPart = cls < 0 ? "" : suffix.substring(cls);
+      roi.setName(
+          String.format(
+              Locale.ROOT, "object-%04d%s-t%04d%s", numberOf[own], plane, frame + 1, classPart));
+      roi.setPosition(0, labels.depth() > 1 ? roi.getPosition() : 1, frame + 1);
+    }
+    return out;
+  }
+
   /** The ROIs of all objects, named and positioned, in zip order. */
   public static List<Roi> rois(ObjectLabels labels) {
     return rois(labels, null);
   }
 
-  /** As {@link #rois(ObjectLabels)}, grouped by class when {@code objectClasses} is not null. */
+  /**
+   * As {@link #rois(ObjectLabels)}, each name ending in {@code -classN} for an object of class N
+   * when {@code objectClasses} is not null. (ImageJ's ROI groups are not used: giving a ROI a group
+   * looks up a colour table that a headless installation lacks, with a message per ROI.)
+   */
   public static List<Roi> rois(ObjectLabels labels, int[] objectClasses) {
     int w = labels.width();
     int h = labels.height();
@@ -131,10 +168,10 @@ public final class RoiExport {
           name += String.format(Locale.ROOT, "-z%04d", z + 1);
           roi.setPosition(z + 1);
         }
-        roi.setName(name);
         if (objectClasses != null) {
-          roi.setGroup(objectClasses[l - 1]);
+          name += "-class" + objectClasses[l - 1];
         }
+        roi.setName(name);
         out.add(roi);
       }
     }
