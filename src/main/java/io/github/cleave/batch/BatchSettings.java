@@ -1,5 +1,6 @@
 package io.github.cleave.batch;
 
+import io.github.cleave.io.TimeAxis;
 import java.nio.file.Path;
 import java.util.Objects;
 
@@ -23,6 +24,10 @@ import java.util.Objects;
  *     folder of another model's run may be replaced
  * @param heapBudgetBytes heap the run may plan for when it lets several images into memory at once;
  *     0 for what the JVM has free at the start
+ * @param timeAxis how the slices of a file without time points are read ({@link TimeAxis}); a file
+ *     with several time points is cut one time point at a time ({@code TimeLapseSegmenter})
+ * @param seedFrame the time point (0-based) that a time-lapse's seed file belongs to
+ * @param seedsFromNeighbour whether each other time point is seeded from its neighbour's objects
  */
 public record BatchSettings(
     Path model,
@@ -33,7 +38,10 @@ public record BatchSettings(
     String pattern,
     boolean recursive,
     boolean overwrite,
-    long heapBudgetBytes) {
+    long heapBudgetBytes,
+    TimeAxis timeAxis,
+    int seedFrame,
+    boolean seedsFromNeighbour) {
 
   /** The files matched when no pattern is given: TIFF and PNG, in any letter case. */
   public static final String DEFAULT_PATTERN = "*.{tif,tiff,png}";
@@ -53,6 +61,38 @@ public record BatchSettings(
       throw new IllegalArgumentException("heap budget " + heapBudgetBytes + ": need 0 or more");
     }
     pattern = pattern == null || pattern.isBlank() ? DEFAULT_PATTERN : pattern;
+    Objects.requireNonNull(timeAxis, "timeAxis");
+    if (seedFrame < 0) {
+      throw new IllegalArgumentException("seed time point " + seedFrame + ": need 0 or more");
+    }
+  }
+
+  /**
+   * Settings with the default time handling (automatic time axis, seeds on the first time point).
+   */
+  public BatchSettings(
+      Path model,
+      Path in,
+      Path out,
+      Path seeds,
+      int threads,
+      String pattern,
+      boolean recursive,
+      boolean overwrite,
+      long heapBudgetBytes) {
+    this(
+        model,
+        in,
+        out,
+        seeds,
+        threads,
+        pattern,
+        recursive,
+        overwrite,
+        heapBudgetBytes,
+        TimeAxis.AUTO,
+        0,
+        true);
   }
 
   /** Every file of the default pattern in {@code in}, no seeds folder, one thread per core. */
@@ -64,6 +104,34 @@ public record BatchSettings(
   /** The same settings with another thread count. */
   public BatchSettings withThreads(int n) {
     return new BatchSettings(
-        model, in, out, seeds, n, pattern, recursive, overwrite, heapBudgetBytes);
+        model,
+        in,
+        out,
+        seeds,
+        n,
+        pattern,
+        recursive,
+        overwrite,
+        heapBudgetBytes,
+        timeAxis,
+        seedFrame,
+        seedsFromNeighbour);
+  }
+
+  /** The same settings with another time handling. */
+  public BatchSettings withTime(TimeAxis axis, int frame, boolean fromNeighbour) {
+    return new BatchSettings(
+        model,
+        in,
+        out,
+        seeds,
+        threads,
+        pattern,
+        recursive,
+        overwrite,
+        heapBudgetBytes,
+        axis,
+        frame,
+        fromNeighbour);
   }
 }

@@ -4,14 +4,21 @@ import io.github.cleave.batch.FileOutcome.Status;
 import io.github.cleave.image.BadInputException;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
+import io.github.cleave.io.Hyperstacks;
 import io.github.cleave.io.ImageFiles;
 import io.github.cleave.io.LoadedImage;
+import io.github.cleave.io.OpenedSeries;
 import io.github.cleave.io.SeedFiles;
 import io.github.cleave.io.SegmentationFiles;
+import io.github.cleave.io.TimeLapseFiles;
 import io.github.cleave.render.DisplayRange;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.SegmentationModel;
 import io.github.cleave.segment.Segmenter;
+import io.github.cleave.segment.TimeLapseFrame;
+import io.github.cleave.segment.TimeLapseOptions;
+import io.github.cleave.segment.TimeLapseResult;
+import io.github.cleave.segment.TimeLapseSegmenter;
 import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.io.UncheckedIOException;
@@ -97,6 +104,12 @@ final class FileJob {
   private static Done segment(
       Context c, InputScan.InputFile f, Path outDir, Path seedFile, boolean wantThumbnail)
       throws IOException {
+    if (Hyperstacks.mayHoldTime(f.path())) {
+      OpenedSeries series = Hyperstacks.openSeries(f.path(), c.settings().timeAxis());
+      if (series.frameCount() > 1) {
+        return segmentTimeLapse(c, f, outDir, seedFile, series, wantThumbnail);
+      }
+    }
     LoadedImage image = ImageFiles.read(f.path());
     Raster r = image.raster();
     SeedLabels seeds =
@@ -121,6 +134,43 @@ final class FileJob {
             result.objects().count(),
             result.timings().totalMs(),
             false),
+        wantThumbnail ? Thumbnails.of(picture) : null);
+  }
+
+  /** A time-lapse: every time point with the run's model, outputs over time. */
+  private static Done segmentTimeLapse(
+      Context c,
+      InputScan.InputFile f,
+      Path outDir,
+      Path seedFile,
+      OpenedSeries series,
+      boolean wantThumbnail)
+      throws IOException {
+    SeedLabels seeds =
+        seedFile == null
+            ? null
+            : SeedFiles.read(seedFile, series.width(), series.height(), series.depth());
+    checkCancelled(c);
+    BatchSettings s = c.settings();
+    TimeLapseResult result =
+        TimeLapseSegmenter.apply(
+            c.model(),
+            series,
+            seeds,
+            s.seedFrame(),
+            TimeLapseOptions.defaults().withSeedsFromNeighbour(s.seedsFromNeighbour()));
+    SegmentationFiles.Inputs inputs = new SegmentationFiles.Inputs(f.path(), seedFile, s.model());
+    Files.createDirectories(outDir);
+    BufferedImage picture =
+        TimeLapseFiles.write(outDir, f.baseName(), series, seeds, result, inputs, "batch");
+    int objects = 0;
+    double ms = 0;
+    for (TimeLapseFrame frame : result.frames()) {
+      objects += frame.objectCount();
+      ms += frame.segmentation().timings().totalMs();
+    }
+    return new Done(
+        new FileOutcome(f.relative(), Status.OK, "", objects, ms, false),
         wantThumbnail ? Thumbnails.of(picture) : null);
   }
 

@@ -46,6 +46,7 @@ final class ApplyCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     SegmentationModel m = ModelFiles.read(model);
     OpenedSeries series = Hyperstacks.openSeries(input.image, time.axis());
+    TimeLapseRun.notes(spec, series);
     if (series.frameCount() > 1) {
       return TimeLapseRun.apply(spec, series, input, output, time, m, model);
     }

@@ -9,6 +9,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
@@ -88,6 +89,8 @@ final class BatchCommand implements Callable<Integer> {
       description = "Segment every file again, even where complete outputs exist.")
   boolean overwrite;
 
+  @Mixin TimeOptions time;
+
   @Spec CommandSpec spec;
 
   @Override
@@ -99,7 +102,8 @@ final class BatchCommand implements Callable<Integer> {
     }
     PrintWriter err = spec.commandLine().getErr();
     BatchSettings settings =
-        new BatchSettings(model, in, out, seeds, n, pattern, recursive, overwrite, 0);
+        new BatchSettings(model, in, out, seeds, n, pattern, recursive, overwrite, 0)
+            .withTime(time.axis(), time.seedFrame(), time.options().seedsFromNeighbour());
     ProgressPrinter printer = new ProgressPrinter(err);
     BatchRunner runner = new BatchRunner(settings, printer);
     Thread stopOnCtrlC =

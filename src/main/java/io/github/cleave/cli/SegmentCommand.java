@@ -54,6 +54,7 @@ final class SegmentCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     var settings = options.settings();
     OpenedSeries series = Hyperstacks.openSeries(input.image, time.axis());
+    TimeLapseRun.notes(spec, series);
     if (series.frameCount() > 1) {
       return TimeLapseRun.segment(spec, series, input, output, time, settings, saveModel);
     }

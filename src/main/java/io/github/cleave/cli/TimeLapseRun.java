@@ -94,12 +94,16 @@ final class TimeLapseRun {
     return SeedFiles.read(seedFile, series.width(), series.height(), series.depth());
   }
 
-  private static void announce(CommandSpec spec, OpenedSeries series) {
+  /** Prints what opening the image decided about its time axis, where the user should know. */
+  static void notes(CommandSpec spec, OpenedSeries series) {
     PrintWriter err = spec.commandLine().getErr();
     for (String w : series.warnings()) {
-      err.println("cleave: note: " + series.title() + ": " + w);
+      err.println("cleave: note: " + w);
     }
     err.flush();
+  }
+
+  private static void announce(CommandSpec spec, OpenedSeries series) {
     Progress.say(
         spec,
         String.format(

@@ -47,6 +47,30 @@ public final class Hyperstacks {
   private Hyperstacks() {}
 
   /**
+   * Whether {@code file} may hold more than one time point, from its header alone: false for a PNG
+   * and for a TIFF of one plane, true otherwise (a stack may be a time-lapse or hold slices that
+   * {@link TimeAxis} reads as time points; a zip or an unreadable header cannot tell). Lets a
+   * folder run open single planes the plain way ({@link ImageFiles}) without opening them twice.
+   */
+  public static boolean mayHoldTime(Path file) {
+    String lower = file.getFileName().toString().toLowerCase(Locale.ROOT);
+    if (lower.endsWith(".png")) {
+      return false;
+    }
+    if (lower.endsWith(".tif") || lower.endsWith(".tiff")) {
+      try {
+        FileInfo[] infos = ij.io.Opener.getTiffFileInfo(file.toAbsolutePath().toString());
+        if (infos != null && infos.length == 1 && infos[0].nImages <= 1) {
+          return false;
+        }
+      } catch (RuntimeException | LinkageError e) {
+        return true; // the reader that opens it says what is wrong
+      }
+    }
+    return true;
+  }
+
+  /**
    * Opens {@code file} as a time-lapse, reading no time point yet.
    *
    * @throws BadInputException if the file cannot be used (see the class comment), or one time point

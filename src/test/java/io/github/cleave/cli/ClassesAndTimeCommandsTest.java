@@ -165,6 +165,42 @@ class ClassesAndTimeCommandsTest {
     checkTimeLapse(out, "lapse");
   }
 
+  @Test
+  void aFolderRunCutsATimeLapseBesideSinglePlanes(@TempDir Path tmp) throws IOException {
+    Path model = tmp.resolve("m.json");
+    assertThat(
+            run(
+                    "segment",
+                    "--image",
+                    lapse.toString(),
+                    "--out",
+                    tmp.resolve("a").toString(),
+                    "--save-model",
+                    model.toString())
+                .exit())
+        .isZero();
+    Path folder = Files.createDirectories(tmp.resolve("folder"));
+    Files.copy(lapse, folder.resolve("lapse.tif"));
+    save(grey16(List.of(phantom.frame(0)), 1, 1), folder.resolve("single.tif"));
+    Path out = tmp.resolve("out");
+    MaxflowCommandTest.Run r =
+        run(
+            "batch",
+            "--model",
+            model.toString(),
+            "--in",
+            folder.toString(),
+            "--out",
+            out.toString(),
+            "--threads",
+            "2");
+    assertThat(r.exit()).as(r.err()).isZero();
+    checkTimeLapse(out, "lapse");
+    ImagePlus single = IJ.openImage(out.resolve("single.mask.tif").toString());
+    assertThat(single.getStackSize()).isEqualTo(1);
+    assertThat(Files.readString(out.resolve("files.csv"))).contains("lapse.tif", "single.tif");
+  }
+
   /** Every time point agrees with the truth and every cell keeps one number. */
   private static void checkTimeLapse(Path out, String name) throws IOException {
     ImagePlus mask = IJ.openImage(out.resolve(name + ".mask.tif").toString());
