@@ -1,6 +1,10 @@
 package io.github.cleave.cli;
 
+import io.github.cleave.image.Raster;
+import io.github.cleave.image.SeedLabels;
+import io.github.cleave.io.Hyperstacks;
 import io.github.cleave.io.ModelFiles;
+import io.github.cleave.io.OpenedSeries;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.Segmenter;
 import java.nio.file.Files;
@@ -39,20 +43,36 @@ final class LearnCommand implements Callable<Integer> {
 
   @Mixin ImageAndSeedOptions input;
 
+  @Mixin TimeOptions time;
+
   @Spec CommandSpec spec;
 
   @Override
   public Integer call() throws Exception {
     var settings = options.settings();
     ModelOutput.check(model, "--model", force);
-    ImageInputs.ImageWithSeeds in = ImageInputs.read(input.image, input.seeds, true);
-    for (Path input : new Path[] {input.image, in.seedFile()}) {
+    OpenedSeries series = Hyperstacks.openSeries(input.image, time.axis());
+    TimeLapseRun.notes(spec, series);
+    Raster raster;
+    SeedLabels seeds;
+    Path seedFile;
+    if (series.frameCount() > 1) { // learn from the time point the seeds were drawn on
+      seedFile = TimeLapseRun.seedFile(input, true);
+      seeds = TimeLapseRun.readSeeds(seedFile, series);
+      raster = TimeLapseRun.seededTimePoint(series, time);
+    } else {
+      ImageInputs.ImageWithSeeds in = ImageInputs.read(input.image, input.seeds, true);
+      seedFile = in.seedFile();
+      seeds = in.seeds();
+      raster = in.image().raster();
+    }
+    for (Path input : new Path[] {input.image, seedFile}) {
       if (Files.exists(model) && Files.isSameFile(model, input)) {
         throw new InputException("--model " + model + " is an input file: choose another name");
       }
     }
     Progress.say(spec, "learning from " + input.image.getFileName());
-    Segmentation result = Segmenter.segment(in.image().raster(), in.seeds(), settings);
+    Segmentation result = Segmenter.segment(raster, seeds, settings);
     ModelFiles.write(model, result.model());
     for (String w : result.warnings()) {
       spec.commandLine().getErr().println("cleave: note: " + w);

@@ -1,5 +1,6 @@
 package io.github.cleave.cli;
 
+import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.io.ModelFiles;
 import io.github.cleave.io.OpenedSeries;
@@ -73,7 +74,7 @@ final class TimeLapseRun {
     return finish(spec, series, seeds, result, inputs, output, "apply");
   }
 
-  private static Path seedFile(ImageAndSeedOptions input, boolean required) {
+  static Path seedFile(ImageAndSeedOptions input, boolean required) {
     if (input.seeds != null) {
       return input.seeds;
     }
@@ -90,8 +91,23 @@ final class TimeLapseRun {
     return found.orElse(null);
   }
 
-  private static SeedLabels readSeeds(Path seedFile, OpenedSeries series) {
+  static SeedLabels readSeeds(Path seedFile, OpenedSeries series) {
     return SeedFiles.read(seedFile, series.width(), series.height(), series.depth());
+  }
+
+  /** The seeded time point of {@code series}, after checking that it exists. */
+  static Raster seededTimePoint(OpenedSeries series, TimeOptions time) {
+    int t = time.seedFrame();
+    if (t >= series.frameCount()) {
+      throw new InputException(
+          String.format(
+              Locale.ROOT,
+              "--seed-time-point %d, but %s has time points 1 to %d",
+              t + 1,
+              series.title(),
+              series.frameCount()));
+    }
+    return series.frame(t);
   }
 
   /** Prints what opening the image decided about its time axis, where the user should know. */

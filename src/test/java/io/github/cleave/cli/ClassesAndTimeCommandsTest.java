@@ -163,6 +163,20 @@ class ClassesAndTimeCommandsTest {
             out.toString());
     assertThat(r.exit()).as(r.err()).isZero();
     checkTimeLapse(out, "lapse");
+    Path learned = tmp.resolve("learned.json");
+    r = run("learn", "--image", lapse.toString(), "--model", learned.toString());
+    assertThat(r.exit()).as(r.err()).isZero();
+    r =
+        run(
+            "learn",
+            "--image",
+            lapse.toString(),
+            "--seed-time-point",
+            "9",
+            "--model",
+            tmp.resolve("late.json").toString());
+    assertThat(r.exit()).isEqualTo(2);
+    assertThat(r.err()).contains("--seed-time-point 9", "time points 1 to " + FRAMES);
   }
 
   @Test
