@@ -123,23 +123,9 @@ public final class Hyperstacks {
       throw new IllegalArgumentException("time axis must not be null; use TimeAxis.AUTO");
     }
     String name = source != null ? source.toString() : title;
-    if (ImageFiles.isIndexedColour(imp)) {
-      throw new BadInputException(
-          "image "
-              + name
-              + " is 8-bit indexed colour, which has no meaningful intensity; convert it to RGB"
-              + " (or to 8-bit grey) and save it again");
-    }
+    ImageFiles.checkPixelKind(imp, name);
     int bitDepth = imp.getBitDepth();
     int channels = imp.getNChannels();
-    if (bitDepth == 24 && channels > 1) {
-      throw new BadInputException(
-          "image "
-              + name
-              + " is RGB with "
-              + channels
-              + " channels; split the channels or convert the image to a grey composite first");
-    }
     PixelKind kind = ImageFiles.kindOf(bitDepth, name);
     Calibration cal = imp.getCalibration();
     TimeAxisDecision decision =

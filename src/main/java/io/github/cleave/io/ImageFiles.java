@@ -80,8 +80,11 @@ public final class ImageFiles {
     return convert(imp, name, source);
   }
 
-  private static LoadedImage convert(ImagePlus imp, String name, Path source) {
-    int type = imp.getType();
+  /**
+   * Refuses what has no usable intensity per channel: 8-bit indexed colour, RGB with several
+   * channels.
+   */
+  static void checkPixelKind(ImagePlus imp, String name) {
     if (isIndexedColour(imp)) {
       throw new BadInputException(
           "image "
@@ -90,11 +93,7 @@ public final class ImageFiles {
               + " (or to 8-bit grey) and save it again");
     }
     int channels = imp.getNChannels();
-    int slices = imp.getNSlices();
-    int w = imp.getWidth();
-    int h = imp.getHeight();
-    int bitDepth = imp.getBitDepth();
-    if (bitDepth == 24 && channels > 1) {
+    if (imp.getBitDepth() == 24 && channels > 1) {
       throw new BadInputException(
           "image "
               + name
@@ -102,6 +101,16 @@ public final class ImageFiles {
               + channels
               + " channels; split the channels or convert the image to a grey composite first");
     }
+  }
+
+  private static LoadedImage convert(ImagePlus imp, String name, Path source) {
+    int type = imp.getType();
+    checkPixelKind(imp, name);
+    int channels = imp.getNChannels();
+    int slices = imp.getNSlices();
+    int w = imp.getWidth();
+    int h = imp.getHeight();
+    int bitDepth = imp.getBitDepth();
     long plane = (long) w * h;
     if (plane * slices > Integer.MAX_VALUE - 64) {
       throw new BadInputException(
