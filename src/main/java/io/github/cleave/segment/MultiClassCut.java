@@ -7,8 +7,6 @@ import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.model.LikelihoodModel;
 import io.github.cleave.model.ModelKind;
-import io.github.cleave.model.ModelLearner;
-import java.util.Arrays;
 
 /**
  * The cut into three or more classes: alpha-expansion over the Potts energy ({@link
@@ -33,19 +31,12 @@ final class MultiClassCut {
 
   private MultiClassCut() {}
 
-  /** The final class map (labels 1..K per voxel), its energy, the model it used and the timings. */
-  record Outcome(
-      byte[] classes,
-      long energy,
-      LikelihoodModel likelihood,
-      int roundsRun,
-      double learnMs,
-      double costsMs,
-      double buildMs,
-      double solveMs) {}
-
-  /** The cut of {@code model} on {@code image} ({@code features} its driving channels). */
-  static Outcome run(SegmentationModel model, Raster image, SeedLabels seeds, Raster features) {
+  /**
+   * The cut of {@code model} on {@code image} ({@code features} its driving channels); the
+   * outcome's "mask" holds the class 1..K of every voxel and its flow the energy of that labelling.
+   */
+  static RefinedCut.Outcome run(
+      SegmentationModel model, Raster image, SeedLabels seeds, Raster features) {
     SegmentationSettings settings = model.settings();
     return run(
         features,
@@ -57,7 +48,7 @@ final class MultiClassCut {
         Segmenter.energyParameters(model, image));
   }
 
-  static Outcome run(
+  static RefinedCut.Outcome run(
       Raster features,
       SeedLabels seeds,
       LikelihoodModel initial,
@@ -65,42 +56,22 @@ final class MultiClassCut {
       int rounds,
       boolean perPlane,
       EnergyParameters parameters) {
-    LikelihoodModel likelihood = initial;
-    int classes = likelihood.classCount();
-    float[][] costs = new float[classes][features.size()];
-    double learnMs = 0;
-    double costsMs = 0;
-    double buildMs = 0;
-    double solveMs = 0;
-    Segmenter.CutOutcome cut = null;
-    int round = 0;
-    while (true) {
-      long start = System.nanoTime();
-      likelihood.costs(features, costs);
-      costsMs += Segmenter.millisSince(start);
-      Segmenter.CutOutcome next =
-          perPlane && features.depth() > 1
-              ? PlaneCuts.cutEachPlane(
-                  features, costs, seeds, (f, c, s) -> expansion(f, c, s, parameters))
-              : expansion(features, costs, seeds, parameters);
-      buildMs += next.buildMs();
-      solveMs += next.solveMs();
-      boolean unchanged = cut != null && Arrays.equals(cut.mask(), next.mask());
-      cut = next;
-      if (round == rounds || unchanged) {
-        break;
-      }
-      SeedLabels fromCut = labelsFromClasses(cut.mask(), seeds, classes, perPlane);
-      if (!everyClassPresent(fromCut, classes)) {
-        break; // a class lies all in boundary bands: nothing to learn it from, keep this cut
-      }
-      start = System.nanoTime();
-      likelihood = ModelLearner.learn(features, fromCut, kind);
-      learnMs += Segmenter.millisSince(start);
-      round++;
-    }
-    return new Outcome(
-        cut.mask(), cut.flow(), likelihood, round, learnMs, costsMs, buildMs, solveMs);
+    int classes = initial.classCount();
+    return RefinedCut.rounds(
+        features,
+        initial,
+        kind,
+        rounds,
+        costs ->
+            perPlane && features.depth() > 1
+                ? PlaneCuts.cutEachPlane(
+                    features, costs, seeds, (f, c, s) -> expansion(f, c, s, parameters))
+                : expansion(features, costs, seeds, parameters),
+        classMap -> {
+          SeedLabels fromCut = labelsFromClasses(classMap, seeds, classes, perPlane);
+          // null when a class lies all in boundary bands: nothing to learn it from
+          return everyClassPresent(fromCut, classes) ? fromCut : null;
+        });
   }
 
   /** One expansion run on one graph; the "mask" of the outcome holds class labels 1..K. */

@@ -27,11 +27,12 @@ final class MultiClassSegmenter {
       List<String> warnings) {
     SegmentationSettings settings = model.settings();
     int classCount = model.likelihood().classCount();
-    MultiClassCut.Outcome cut = MultiClassCut.run(model, image, seeds, features);
+    RefinedCut.Outcome refined = MultiClassCut.run(model, image, seeds, features);
+    Segmenter.CutOutcome cut = refined.cut();
     long start = System.nanoTime();
     ClassObjects.Formed formed =
         ClassObjects.form(
-            cut.classes(),
+            cut.mask(),
             classCount,
             image.width(),
             image.height(),
@@ -52,19 +53,19 @@ final class MultiClassSegmenter {
         MaskCleaning.union(formed.objects()),
         formed.objects(),
         measurements,
-        CapacityScale.toNats(cut.energy()),
-        cut.energy(),
-        model.withLikelihood(cut.likelihood()),
+        CapacityScale.toNats(cut.flow()),
+        cut.flow(),
+        model.withLikelihood(refined.likelihood()),
         image.voxelSize(),
         new PhaseTimings(
             flattenMs,
-            learnMs + cut.learnMs(),
-            cut.costsMs(),
+            learnMs + refined.learnMs(),
+            refined.costsMs(),
             cut.buildMs(),
             cut.solveMs(),
             objectsMs,
             measureMs),
         warnings,
-        new ClassMap(classCount, cut.classes(), formed.objectClasses()));
+        new ClassMap(classCount, cut.mask(), formed.objectClasses()));
   }
 }

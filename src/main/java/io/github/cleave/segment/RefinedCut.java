@@ -7,6 +7,7 @@ import io.github.cleave.model.LikelihoodModel;
 import io.github.cleave.model.ModelKind;
 import io.github.cleave.model.ModelLearner;
 import java.util.Arrays;
+import java.util.function.Function;
 
 /**
  * The cut with iterated re-estimation of the likelihoods: cut with the given model, learn the
@@ -54,34 +55,67 @@ final class RefinedCut {
       int rounds,
       boolean perPlane,
       EnergyParameters parameters) {
+    VolumeCut volume = new VolumeCut(features, seeds, parameters); // keeps its graph across rounds
+    return rounds(
+        features,
+        initial,
+        kind,
+        rounds,
+        costs ->
+            perPlane && features.depth() > 1
+                ? PlaneCuts.cutEachPlane(features, costs, seeds, parameters)
+                : volume.cut(costs),
+        mask -> {
+          if (!bothClassesPresent(mask)) {
+            return null;
+          }
+          SeedLabels fromCut = labelsFromCut(mask, seeds, perPlane);
+          // null when the cut's foreground is all boundary band: nothing to learn from
+          return hasBothClasses(fromCut) ? fromCut : null;
+        });
+  }
+
+  /** One cut for given regional costs ({@code costs[c]} of class c + 1). */
+  interface Cutter {
+    Segmenter.CutOutcome cut(float[][] costs);
+  }
+
+  /**
+   * The rounds themselves, for any number of classes: cut with the model's costs; unless this was
+   * the last round or the cut equals the one before, learn the model again from the labels that
+   * {@code relabel} makes of the cut ({@code null}: nothing to learn from, keep this cut) and cut
+   * again.
+   */
+  static Outcome rounds(
+      Raster features,
+      LikelihoodModel initial,
+      ModelKind kind,
+      int rounds,
+      Cutter cutter,
+      Function<byte[], SeedLabels> relabel) {
     LikelihoodModel likelihood = initial;
-    int n = features.size();
-    float[][] costs = new float[likelihood.classCount()][n];
+    float[][] costs = new float[likelihood.classCount()][features.size()];
     double learnMs = 0;
     double costsMs = 0;
     double buildMs = 0;
     double solveMs = 0;
     Segmenter.CutOutcome cut = null;
-    VolumeCut volume = new VolumeCut(features, seeds, parameters); // keeps its graph across rounds
     int round = 0;
     while (true) {
       long start = System.nanoTime();
       likelihood.costs(features, costs);
       costsMs += Segmenter.millisSince(start);
-      Segmenter.CutOutcome next =
-          perPlane && features.depth() > 1
-              ? PlaneCuts.cutEachPlane(features, costs, seeds, parameters)
-              : volume.cut(costs);
+      Segmenter.CutOutcome next = cutter.cut(costs);
       buildMs += next.buildMs();
       solveMs += next.solveMs();
       boolean unchanged = cut != null && Arrays.equals(cut.mask(), next.mask());
       cut = next;
-      if (round == rounds || unchanged || !bothClassesPresent(cut.mask())) {
+      if (round == rounds || unchanged) {
         break;
       }
-      SeedLabels fromCut = labelsFromCut(cut.mask(), seeds, perPlane);
-      if (!hasBothClasses(fromCut)) {
-        break; // the cut's foreground is all boundary band: nothing to learn from, keep it
+      SeedLabels fromCut = relabel.apply(cut.mask());
+      if (fromCut == null) {
+        break;
       }
       start = System.nanoTime();
       likelihood = ModelLearner.learn(features, fromCut, kind);

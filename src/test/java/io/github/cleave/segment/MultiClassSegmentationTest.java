@@ -130,7 +130,8 @@ class MultiClassSegmentationTest {
           byte[] multi =
               MultiClassCut.run(
                       features, p.seeds(), model, ModelKind.HISTOGRAM, rounds, perPlane, parameters)
-                  .classes();
+                  .cut()
+                  .mask();
           assertThat(differences(maskOf(multi, SeedLabels.FOREGROUND), asOnes(twoClass)))
               .as("%s, per plane %s, %d rounds", p.name(), perPlane, rounds)
               .isZero();
