@@ -156,7 +156,8 @@ class SegmentCommandsInImageJTest {
             image,
             () ->
                 (SegmentImageCommand.Result)
-                    ApplyModelCommand.run(image, ApplyModelCommand.form(image).read(null, v -> {})));
+                    ApplyModelCommand.run(
+                        image, ApplyModelCommand.form(image).read(null, v -> {})));
     ImagePlus cliMask = IJ.openImage(out.resolve("nuclei.mask.tif").toString());
     assertThat((byte[]) r.images().mask().getProcessor().getPixels())
         .isEqualTo((byte[]) cliMask.getProcessor().getPixels());
