@@ -61,7 +61,9 @@ final class ClassMapImages {
 
   /** Puts {@code roi} in the group of class {@code c} and draws it in that class's colour. */
   static void colour(Roi roi, int c) {
-    roi.setGroup(c);
+    if (roi.getGroup() != c) {
+      roi.setGroup(c);
+    }
     roi.setStrokeColor(new Color(SeedColours.of(c)));
   }
 }
