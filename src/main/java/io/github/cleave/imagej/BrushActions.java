@@ -13,7 +13,6 @@ import io.github.cleave.image.BadInputException;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.io.ModelFiles;
 import io.github.cleave.io.SeedFiles;
-import io.github.cleave.objects.RoiExport;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.SegmentationSettings;
 import io.github.cleave.segment.Segmenter;
@@ -33,6 +32,10 @@ import java.util.zip.ZipOutputStream;
  * Segmenter#segment}, the same as {@code Segment Current Image...} with the panel's settings), run
  * off the event thread with Esc to stop; the last result is kept while seeds and settings stay the
  * same, so mask, label image, ROIs and measurements of one state agree.
+ *
+ * <p>With strokes of three or more classes, the mask action also shows the class map (8-bit, seed
+ * palette), the measurements have a {@code class} column and the ROIs are grouped and coloured by
+ * class ({@link ResultImages}).
  */
 final class BrushActions {
   private final BrushSession session;
@@ -64,12 +67,17 @@ final class BrushActions {
             ResultImages images = images(seeds, settings, progress);
             progress.phase("showing the results", 0.9, 0.95, seeds.size());
             switch (output) {
-              case MASK -> images.mask().show();
+              case MASK -> {
+                images.mask().show();
+                if (images.classes() != null) {
+                  images.classes().show();
+                }
+              }
               case LABELS -> images.labels().show();
               case MEASURE -> images.table().show(ResultImages.TABLE);
               case ROIS -> {
                 RoiManager rm = RoiManager.getRoiManager();
-                for (Roi roi : RoiExport.rois(last.objects())) {
+                for (Roi roi : images.rois()) {
                   rm.addRoi(roi);
                 }
               }

@@ -16,6 +16,7 @@ import io.github.cleave.io.ObjectsCsv;
 import io.github.cleave.objects.ObjectLabels;
 import io.github.cleave.objects.ObjectMeasurement;
 import io.github.cleave.objects.RoiExport;
+import io.github.cleave.segment.ClassMap;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.SoftwareVersion;
 import java.awt.GraphicsEnvironment;
@@ -26,15 +27,27 @@ import java.util.Locale;
  * A segmentation presented in ImageJ: a mask image (8-bit, 0/255), a label image (16-bit object
  * numbers; 32-bit beyond 65535 objects), a Results table of the objects in calibrated units (the
  * columns of {@code NAME.objects.csv}) and, with a display, the objects' ROIs in the ROI Manager.
- * Both images carry the source image's calibration and, as their image info ({@code Image > Show
+ * The images carry the source image's calibration and, as their image info ({@code Image > Show
  * Info}, saved in TIFFs), how they were made: software version, command, inputs and every setting.
  * The source image is never changed.
  *
+ * <p>Three or more classes add a class map ({@link ClassMapImages}: 8-bit class numbers 1..K in the
+ * seed palette), a {@code class} column in the table right after {@code object} (as in {@code
+ * NAME.objects.csv}), and ROIs in the group of their object's class, drawn in the class colour.
+ *
  * @param mask the mask image
  * @param labels the label image
+ * @param classes the class map, or null for two classes
  * @param table one row per object, in object-number order
+ * @param segmentation what the images show
  */
-record ResultImages(ImagePlus mask, ImagePlus labels, ResultsTable table) {
+record ResultImages(
+    ImagePlus mask,
+    ImagePlus labels,
+    ImagePlus classes,
+    ResultsTable table,
+    Segmentation segmentation)
+    implements Presentable {
 
   /**
    * Builds the images and the table.
@@ -59,27 +72,70 @@ record ResultImages(ImagePlus mask, ImagePlus labels, ResultsTable table) {
       imp.setProperty("Info", info);
     }
     labels.setDisplayRange(0, Math.max(1, result.objects().count()));
-    return new ResultImages(mask, labels, table(result, raster));
+    ImagePlus classes = null;
+    if (result.isMultiClass()) {
+      classes =
+          ClassMapImages.image(base + ".classes", List.of(result.classes().labels()), w, h, d);
+      classes.setCalibration(source.getCalibration().copy());
+      classes.setProperty("Info", info);
+    }
+    return new ResultImages(mask, labels, classes, table(result, raster), result);
   }
 
   /** The title of the table shown: ImageJ's own Results table, which macros read and save. */
   static final String TABLE = "Results";
 
   /**
-   * Shows the images and the table (as ImageJ's Results table) and, if asked, adds the objects'
-   * ROIs to the ROI Manager; with no display only batch-mode images are kept (nothing is shown).
+   * Shows the images (mask, label image, class map) and the table (as ImageJ's Results table) and,
+   * if asked, adds the objects' ROIs to the ROI Manager; with no display only batch-mode images are
+   * kept (nothing is shown).
    */
-  void show(Segmentation result, boolean roisToManager) {
+  @Override
+  public void show(boolean roisToManager) {
+    showAll(new ImagePlus[] {mask, labels, classes}, table, roisToManager ? this::rois : null);
+  }
+
+  @Override
+  public String summary() {
+    return SegmentImageCommand.summary(segmentation);
+  }
+
+  @Override
+  public List<String> notes() {
+    return segmentation.warnings();
+  }
+
+  /**
+   * The objects' ROIs, named and positioned as in {@code NAME.rois.zip}; with three or more classes
+   * each in the group of its class and drawn in the class colour.
+   */
+  List<Roi> rois() {
+    ClassMap cm = segmentation.classes();
+    List<Roi> rois = RoiExport.rois(segmentation.objects(), cm == null ? null : cm.objectClasses());
+    if (cm != null) {
+      for (Roi roi : rois) {
+        ClassMapImages.colour(roi, roi.getGroup());
+      }
+    }
+    return rois;
+  }
+
+  /** Shows {@code images} (null entries skipped), {@code table} and, if given, the ROIs. */
+  static void showAll(
+      ImagePlus[] images, ResultsTable table, java.util.function.Supplier<List<Roi>> rois) {
     boolean headless = GraphicsEnvironment.isHeadless();
     if (!headless || Interpreter.isBatchMode()) {
-      mask.show();
-      labels.show();
+      for (ImagePlus imp : images) {
+        if (imp != null) {
+          imp.show();
+        }
+      }
     }
     if (!headless) {
       table.show(TABLE);
-      if (roisToManager) {
+      if (rois != null) {
         RoiManager rm = RoiManager.getRoiManager();
-        for (Roi roi : RoiExport.rois(result.objects())) {
+        for (Roi roi : rois.get()) {
           rm.addRoi(roi);
         }
       }
@@ -117,25 +173,53 @@ record ResultImages(ImagePlus mask, ImagePlus labels, ResultsTable table) {
   /** The measurements as a Results table with the columns of the objects CSV. */
   static ResultsTable table(Segmentation result, Raster raster) {
     boolean stack = raster.depth() > 1;
+    int[] channels = measuredChannels(result, raster.channelCount());
+    ResultsTable rt = new ResultsTable();
+    rt.setPrecision(6);
+    ClassMap cm = result.classes();
+    addRows(rt, result.measurements(), cm == null ? null : cm::classOf, stack, result, channels, 0);
+    return rt;
+  }
+
+  /** The measured channels of a result (all channels of {@code raster} when not set), 0-based. */
+  static int[] measuredChannels(Segmentation result, int channelCount) {
     int[] channels = result.model().settings().measuredChannels();
     if (channels == null) {
-      channels = new int[raster.channelCount()];
+      channels = new int[channelCount];
       for (int c = 0; c < channels.length; c++) {
         channels[c] = c;
       }
     }
+    return channels;
+  }
+
+  /**
+   * Adds one row per measurement with the columns of the objects CSV ({@code class} after {@code
+   * object} when {@code classOf} is not null), preceded by a {@code frame} column holding {@code
+   * frame} when it is above 0.
+   */
+  static void addRows(
+      ResultsTable rt,
+      List<ObjectMeasurement> measurements,
+      java.util.function.IntUnaryOperator classOf,
+      boolean stack,
+      Segmentation result,
+      int[] channels,
+      int frame) {
     String[] header =
-        ObjectsCsv.header(stack, result.voxelSize().unit(), channels, false).split(",");
-    ResultsTable rt = new ResultsTable();
-    rt.setPrecision(6);
-    for (ObjectMeasurement m : result.measurements()) {
-      String[] row = ObjectsCsv.row(m, stack, null).split(",");
+        ObjectsCsv.header(stack, result.voxelSize().unit(), channels, false, classOf != null)
+            .split(",");
+    for (ObjectMeasurement m : measurements) {
+      int c = classOf == null ? 0 : classOf.applyAsInt(m.label());
+      String[] row = ObjectsCsv.row(m, stack, null, c).split(",");
       rt.incrementCounter();
+      if (frame > 0) {
+        rt.addValue("frame", frame);
+      }
       for (int i = 0; i < header.length; i++) {
         rt.addValue(header[i], Double.parseDouble(row[i]));
       }
     }
-    return rt;
   }
 
   static String baseTitle(String title) {

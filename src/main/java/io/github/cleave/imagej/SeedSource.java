@@ -164,7 +164,8 @@ final class SeedSource {
     }
   }
 
-  private static Roi[] managerRois() {
+  /** The ROIs of the open ROI Manager. */
+  static Roi[] managerRois() {
     if (GraphicsEnvironment.isHeadless()) {
       throw new BadInputException(
           "the ROI Manager is not available without a display; give seeds=TITLE of an open seed"

@@ -9,6 +9,7 @@ import io.github.cleave.image.SeedLabels;
 import io.github.cleave.io.ImageFiles;
 import io.github.cleave.io.LoadedImage;
 import io.github.cleave.io.ModelFiles;
+import io.github.cleave.io.OpenedSeries;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.SegmentationSettings;
 import io.github.cleave.segment.Segmenter;
@@ -46,13 +47,11 @@ public final class SegmentImageCommand implements PlugIn {
     }
     try {
       Form form = form(imp);
-      Map<String, String> values = form.read(null, SettingsFields::settings);
+      Map<String, String> values = form.read(null, SegmentImageCommand::check);
       if (values == null) {
         return;
       }
-      Result r = run(imp, values);
-      r.images().show(r.segmentation(), Boolean.parseBoolean(values.get("add")));
-      IJ.showStatus(summary(r.segmentation()));
+      present(TITLE, run(imp, values), Boolean.parseBoolean(values.get("add")));
     } catch (BadInputException e) {
       Problems.report(TITLE, e.getMessage());
     } catch (CancellationException e) {
@@ -62,29 +61,84 @@ public final class SegmentImageCommand implements PlugIn {
     }
   }
 
+  /** Logs the notes of {@code made}, shows it and puts its summary in the status bar. */
+  static void present(String title, Presentable made, boolean roisToManager) {
+    for (String note : made.notes()) {
+      IJ.log("Cleave: " + title + ": " + note);
+    }
+    made.show(roisToManager);
+    IJ.showStatus(made.summary());
+  }
+
+  private static void check(Map<String, String> values) {
+    SettingsFields.settings(values);
+    SettingsFields.time(values);
+  }
+
   /** The dialog of this command for {@code imp}. */
   static Form form(ImagePlus imp) {
     List<FormField> fields = new ArrayList<>();
     List<String> seeds = SeedSource.choices(imp, false);
     fields.add(FormField.choice("Seeds (seed label image or ROI Manager)", seeds.get(0), seeds));
     fields.addAll(SettingsFields.fields());
+    fields.addAll(SettingsFields.timeFields());
     fields.add(FormField.file("Save model to (optional JSON file)", ""));
     fields.add(FormField.check("Add objects to the ROI Manager", false));
     return new Form(TITLE, "segment", fields);
   }
 
-  /** The outcome of a run: the segmentation and its presentation (not yet shown). */
-  record Result(Segmentation segmentation, ResultImages images) {}
+  /**
+   * The outcome of a run on an image of one time point: the segmentation and its presentation (not
+   * yet shown).
+   *
+   * @param notes doubts about the time axis (slices that may be time points), for the Log
+   */
+  record Result(Segmentation segmentation, ResultImages images, List<String> notes)
+      implements Presentable {
+    @Override
+    public void show(boolean roisToManager) {
+      images.show(roisToManager);
+    }
+
+    @Override
+    public String summary() {
+      return SegmentImageCommand.summary(segmentation);
+    }
+  }
 
   /**
-   * Segments {@code imp} with the given field values (macro keys), without showing anything.
+   * Segments {@code imp} with the given field values (macro keys), without showing anything: a
+   * {@link Result} for an image of one time point, {@link TimeLapseImages} for a time-lapse.
    *
    * @throws BadInputException for invalid values, seeds or image
    * @throws CancellationException if Esc was pressed
    * @throws IOException if the model cannot be saved
    */
-  static Result run(ImagePlus imp, Map<String, String> values) throws IOException {
+  static Presentable run(ImagePlus imp, Map<String, String> values) throws IOException {
     SegmentationSettings settings = SettingsFields.settings(values);
+    TimeSettings time = SettingsFields.time(values);
+    OpenedSeries series = TimeLapseRun.series(imp, time);
+    for (String warning : series.warnings()) {
+      IJ.showStatus("Cleave: " + warning);
+    }
+    String save = values.get("save");
+    if (series.frameCount() > 1) {
+      TimeSeeds seeds = TimeSeeds.read(values.get("seeds"), imp, series, time);
+      if (seeds.seeds() == null) {
+        throw new BadInputException(
+            "seeds=none: segmenting needs seeds; give a seed image or use the ROI Manager");
+      }
+      List<String> inputs = new ArrayList<>();
+      if (save != null && !save.isBlank()) {
+        inputs.add("model saved to: " + Path.of(save).toAbsolutePath());
+      }
+      TimeLapseImages made =
+          TimeLapseRun.segment(imp, series, seeds, settings, time, TITLE, inputs);
+      if (save != null && !save.isBlank()) {
+        ModelFiles.write(Path.of(save), made.result().model());
+      }
+      return made;
+    }
     SeedLabels seeds = SeedSource.read(values.get("seeds"), imp);
     if (seeds == null) {
       throw new BadInputException(
@@ -103,13 +157,13 @@ public final class SegmentImageCommand implements PlugIn {
     }
     List<String> inputs = new ArrayList<>();
     inputs.add("seeds: " + values.get("seeds"));
-    String save = values.get("save");
     if (save != null && !save.isBlank()) {
       Path file = Path.of(save);
       ModelFiles.write(file, result.model());
       inputs.add("model saved to: " + file.toAbsolutePath());
     }
-    return new Result(result, ResultImages.of(imp, image.raster(), result, TITLE, inputs));
+    return new Result(
+        result, ResultImages.of(imp, image.raster(), result, TITLE, inputs), series.warnings());
   }
 
   /**

@@ -1,6 +1,7 @@
 package io.github.cleave.imagej;
 
 import io.github.cleave.image.BadInputException;
+import io.github.cleave.io.TimeAxis;
 import io.github.cleave.model.ModelKind;
 import io.github.cleave.objects.ObjectSettings;
 import io.github.cleave.objects.ObjectSplit;
@@ -16,6 +17,13 @@ import java.util.Map;
  * boundary}), and their conversion into {@link SegmentationSettings}. Channel numbers are 1-based
  * in fields, as on the command line. Pixel size and unit are not fields: ImageJ images carry their
  * calibration ({@code Image > Properties}).
+ *
+ * <p>The time-lapse fields ({@link #timeFields()}, used by the commands that segment the current
+ * image) are "Time axis" ({@code time=auto}, {@code time=[slices are time points]}, {@code
+ * time=[slices are z planes]}), "Frame seeds from the neighbouring time point" (checkbox, {@code
+ * frame_seeds}; on by default in the dialog, and, as for every ImageJ checkbox, on in a macro only
+ * when the key is given) and "Seed frame" ({@code seed_frame=N}, 1-based; 0 = the image's current
+ * time point), read into {@link TimeSettings}.
  *
  * <p>Every invalid value is refused with a {@link BadInputException} that names the macro key, the
  * value and what would be accepted.
@@ -47,6 +55,55 @@ final class SettingsFields {
         FormField.text("Max size (blank = no limit)", ""),
         FormField.check("Exclude objects touching the image edge", false),
         FormField.check("Edge planes count as edges (stacks)", false));
+  }
+
+  /** The choice of "Time axis" that reads slices as time points. */
+  static final String SLICES_ARE_TIME = "slices are time points";
+
+  /** The choice of "Time axis" that reads slices as the z planes of one volume. */
+  static final String SLICES_ARE_Z = "slices are z planes";
+
+  /** The time-lapse fields, in dialog order (see the class comment). */
+  static List<FormField> timeFields() {
+    return List.of(
+        FormField.choice(
+            "Time axis (images without frames)",
+            "auto",
+            List.of("auto", SLICES_ARE_TIME, SLICES_ARE_Z)),
+        FormField.check("Frame_seeds from the neighbouring time point (time-lapses)", true),
+        FormField.text("Seed_frame (time point of seeds without one; 0 = current)", "0"));
+  }
+
+  /** The time-lapse settings the values give; keys left out take the dialog's defaults. */
+  static TimeSettings time(Map<String, String> v) {
+    String axis = v.getOrDefault("time", "auto");
+    TimeAxis a =
+        switch (blank(axis) ? "auto" : axis.toLowerCase(Locale.ROOT).trim()) {
+          case "auto" -> TimeAxis.AUTO;
+          case SLICES_ARE_TIME -> TimeAxis.SLICES_ARE_FRAMES;
+          case SLICES_ARE_Z -> TimeAxis.SLICES_ARE_Z;
+          default ->
+              throw new BadInputException(
+                  "time="
+                      + axis
+                      + ": use auto, ["
+                      + SLICES_ARE_TIME
+                      + "] or ["
+                      + SLICES_ARE_Z
+                      + "]");
+        };
+    String f = v.getOrDefault("seed_frame", "0");
+    int frame;
+    try {
+      frame = blank(f) ? 0 : Integer.parseInt(f.trim());
+    } catch (NumberFormatException e) {
+      frame = -1;
+    }
+    if (frame < 0) {
+      throw new BadInputException(
+          "seed_frame=" + f + ": give a time point from 1, or 0 for the image's current one");
+    }
+    return new TimeSettings(a, Boolean.parseBoolean(v.getOrDefault("frame_seeds", "true")), frame);
   }
 
   /** The settings the values give. */

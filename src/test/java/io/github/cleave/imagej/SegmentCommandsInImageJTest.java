@@ -81,7 +81,7 @@ class SegmentCommandsInImageJTest {
         () -> {
           Map<String, String> values =
               SegmentImageCommand.form(image).read(null, SettingsFields::settings);
-          return SegmentImageCommand.run(image, values);
+          return (SegmentImageCommand.Result) SegmentImageCommand.run(image, values);
         });
   }
 
@@ -154,7 +154,10 @@ class SegmentCommandsInImageJTest {
         MacroThread.call(
             "model=[" + model + "] seeds=none",
             image,
-            () -> ApplyModelCommand.run(image, ApplyModelCommand.form(image).read(null, v -> {})));
+            () ->
+                (SegmentImageCommand.Result)
+                    ApplyModelCommand.run(
+                        image, ApplyModelCommand.form(image).read(null, v -> {})));
     ImagePlus cliMask = IJ.openImage(out.resolve("nuclei.mask.tif").toString());
     assertThat((byte[]) r.images().mask().getProcessor().getPixels())
         .isEqualTo((byte[]) cliMask.getProcessor().getPixels());
@@ -222,8 +225,13 @@ class SegmentCommandsInImageJTest {
             "max",
             "exclude",
             "edge",
+            "time",
+            "frame_seeds",
+            "seed_frame",
             "save",
             "add");
+    assertThat(ApplyModelCommand.form(image).fields().stream().map(FormField::key).toList())
+        .containsExactly("model", "seeds", "time", "frame_seeds", "seed_frame", "add");
     assertThat(SegmentFolderCommand.form().fields().stream().map(FormField::key).toList())
         .containsExactly(
             "model", "input", "output", "seeds", "pattern", "threads", "recursive", "overwrite");
