@@ -4,6 +4,7 @@ import ij.ImagePlus;
 import ij.ImageStack;
 import ij.gui.Roi;
 import ij.process.LUT;
+import io.github.cleave.objects.RoiExport;
 import io.github.cleave.render.SeedColours;
 import java.awt.Color;
 import java.util.List;
@@ -59,11 +60,16 @@ final class ClassMapImages {
     return imp;
   }
 
-  /** Puts {@code roi} in the group of class {@code c} and draws it in that class's colour. */
-  static void colour(Roi roi, int c) {
-    if (roi.getGroup() != c) {
-      roi.setGroup(c);
+  /**
+   * Draws {@code roi} in the colour of the class its name ends in ({@code -classN}, {@link
+   * RoiExport#classOf}); a ROI without class is left as it is. (ImageJ's ROI groups are not used:
+   * giving a ROI a group looks up a colour table that some installations lack, with a message per
+   * ROI, and would draw it in that table's colour instead of the class colour.)
+   */
+  static void colour(Roi roi) {
+    int c = RoiExport.classOf(roi);
+    if (c > 0) {
+      roi.setStrokeColor(new Color(SeedColours.of(c)));
     }
-    roi.setStrokeColor(new Color(SeedColours.of(c)));
   }
 }

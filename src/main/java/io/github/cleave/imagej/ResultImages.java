@@ -107,16 +107,12 @@ record ResultImages(
 
   /**
    * The objects' ROIs, named and positioned as in {@code NAME.rois.zip}; with three or more classes
-   * each in the group of its class and drawn in the class colour.
+   * each named with its class and drawn in the class colour.
    */
   List<Roi> rois() {
     ClassMap cm = segmentation.classes();
     List<Roi> rois = RoiExport.rois(segmentation.objects(), cm == null ? null : cm.objectClasses());
-    if (cm != null) {
-      for (Roi roi : rois) {
-        ClassMapImages.colour(roi, roi.getGroup());
-      }
-    }
+    rois.forEach(ClassMapImages::colour);
     return rois;
   }
 

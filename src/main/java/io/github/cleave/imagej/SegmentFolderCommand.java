@@ -51,18 +51,20 @@ public final class SegmentFolderCommand implements PlugIn {
   }
 
   static Form form() {
-    return new Form(
-        TITLE,
-        "folder",
-        List.of(
-            FormField.file("Model file (JSON)", ""),
-            FormField.folder("Input folder", ""),
-            FormField.folder("Output folder", ""),
-            FormField.folder("Seeds folder (optional)", ""),
-            FormField.text("Pattern of file names", BatchSettings.DEFAULT_PATTERN),
-            FormField.text("Threads", Integer.toString(Runtime.getRuntime().availableProcessors())),
-            FormField.check("Recursive (subfolders too)", false),
-            FormField.check("Overwrite complete outputs", false)));
+    List<FormField> fields =
+        new java.util.ArrayList<>(
+            List.of(
+                FormField.file("Model file (JSON)", ""),
+                FormField.folder("Input folder", ""),
+                FormField.folder("Output folder", ""),
+                FormField.folder("Seeds folder (optional)", ""),
+                FormField.text("Pattern of file names", BatchSettings.DEFAULT_PATTERN),
+                FormField.text(
+                    "Threads", Integer.toString(Runtime.getRuntime().availableProcessors())),
+                FormField.check("Recursive (subfolders too)", false),
+                FormField.check("Overwrite complete outputs", false)));
+    fields.addAll(SettingsFields.timeFields());
+    return new Form(TITLE, "folder", fields);
   }
 
   /** The folder run the values describe. */
@@ -75,16 +77,21 @@ public final class SegmentFolderCommand implements PlugIn {
     if (threads < 1) {
       throw new BadInputException("threads=" + threads + ": give 1 or more");
     }
+    TimeSettings time = SettingsFields.time(v);
     return new BatchSettings(
-        model,
-        in,
-        out,
-        SettingsFields.blank(seeds) ? null : Path.of(seeds),
-        threads,
-        v.get("pattern"),
-        Boolean.parseBoolean(v.get("recursive")),
-        Boolean.parseBoolean(v.get("overwrite")),
-        0);
+            model,
+            in,
+            out,
+            SettingsFields.blank(seeds) ? null : Path.of(seeds),
+            threads,
+            v.get("pattern"),
+            Boolean.parseBoolean(v.get("recursive")),
+            Boolean.parseBoolean(v.get("overwrite")),
+            0)
+        .withTime(
+            time.axis(),
+            Math.max(0, time.seedFrame() - 1), // a folder has no current time point: 0 means 1
+            time.seedsFromNeighbour());
   }
 
   /**

@@ -24,11 +24,12 @@ import java.util.Map;
  * numbers (the same cell has the same number on every time point; 16-bit, 32-bit beyond 65535
  * tracks) and, with three or more classes, the class map ({@link ClassMapImages}); a Results table
  * with a {@code frame} column (1-based time point) before the columns of the objects CSV (tracked
- * numbers in {@code object}, {@code class} after it with three or more classes); and ROIs named
- * {@code t0003-object-0012} ({@code -z0004} added in stacks) with their hyperstack position (any
- * channel, their z plane, their time point), grouped and coloured by class. The images carry the
- * source's calibration (frame interval included) and their making as image info. The source is
- * never changed.
+ * numbers in {@code object}, {@code class} after it with three or more classes); and ROIs named as
+ * in {@code NAME.rois.zip} ({@code object-0012-t0003}, {@code object-0012-z0004-t0003} in stacks,
+ * {@code -class3} added with classes; {@code RoiExport.roisOfFrame}) with their hyperstack position
+ * (any channel, their z plane, their time point), coloured by class. The images carry the source's
+ * calibration (frame interval included) and their making as image info. The source is never
+ * changed.
  *
  * @param mask the masks over time
  * @param labels the tracked label images over time
@@ -162,26 +163,11 @@ record TimeLapseImages(
     for (TimeLapseFrame f : result.frames()) {
       Segmentation s = f.segmentation();
       ClassMap cm = s.classes();
-      boolean stack = s.objects().depth() > 1;
-      for (Roi roi : RoiExport.rois(s.objects(), cm == null ? null : cm.objectClasses())) {
-        // RoiExport names ROIs object-NNNN[-zNNNN] by the frame's own numbers; the Javadoc there
-        // documents the form.
-        String name = roi.getName();
-        int end = name.indexOf('-', 7);
-        int local = Integer.parseInt(name.substring(7, end < 0 ? name.length() : end));
-        int z = stack ? roi.getPosition() : 1;
-        String renamed =
-            String.format(Locale.ROOT, "t%04d-object-%04d", f.index() + 1, f.trackedNumber(local));
-        if (stack) {
-          renamed += String.format(Locale.ROOT, "-z%04d", z);
-        }
-        roi.setName(renamed);
-        roi.setPosition(0, z, f.index() + 1);
-        if (cm != null) {
-          ClassMapImages.colour(roi, cm.classOf(local));
-        }
-        out.add(roi);
-      }
+      List<Roi> rois =
+          RoiExport.roisOfFrame(
+              s.objects(), cm == null ? null : cm.objectClasses(), f.numberOf(), f.index());
+      rois.forEach(ClassMapImages::colour);
+      out.addAll(rois);
     }
     return out;
   }

@@ -99,6 +99,20 @@ public final class RoiExport {
     return out;
   }
 
+  /** The class in the name of a ROI made with classes ({@code ...-class3} → 3), or 0 if none. */
+  public static int classOf(Roi roi) {
+    String name = roi.getName();
+    int at = name == null ? -1 : name.lastIndexOf("-class");
+    if (at < 0) {
+      return 0;
+    }
+    try {
+      return Integer.parseInt(name.substring(at + "-class".length()));
+    } catch (NumberFormatException e) {
+      return 0;
+    }
+  }
+
   /** The ROIs of all objects, named and positioned, in zip order. */
   public static List<Roi> rois(ObjectLabels labels) {
     return rois(labels, null);

@@ -68,7 +68,7 @@ class ClassResultsTest {
     }
     assertThat(classes.getDisplayRangeMin()).isZero();
     assertThat(classes.getDisplayRangeMax()).isEqualTo(255);
-    // the table's class column and the ROIs' groups and colours follow each object's class
+    // the table's class column and the ROIs' class names and colours follow each object's class
     var table = r.images().table();
     assertThat(table.getColumnIndex("class")).isEqualTo(table.getColumnIndex("object") + 1);
     for (int row = 0; row < table.size(); row++) {
@@ -77,9 +77,10 @@ class ClassResultsTest {
     }
     Set<Integer> groups = new TreeSet<>();
     for (Roi roi : r.images().rois()) {
-      int object = Integer.parseInt(roi.getName().substring(7));
+      String name = roi.getName(); // object-NNNN-classC
+      int object = Integer.parseInt(name.substring(7, name.indexOf("-class")));
       int c = seg.classes().classOf(object);
-      assertThat(roi.getGroup()).isEqualTo(c);
+      assertThat(name).endsWith("-class" + c);
       assertThat(roi.getStrokeColor().getRGB() & 0xffffff).isEqualTo(PALETTE[c - 1]);
       groups.add(c);
     }

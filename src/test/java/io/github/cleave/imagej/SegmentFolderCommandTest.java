@@ -3,6 +3,8 @@ package io.github.cleave.imagej;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import io.github.cleave.batch.BatchResult;
+import io.github.cleave.batch.BatchSettings;
+import io.github.cleave.io.TimeAxis;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
@@ -56,5 +58,29 @@ class SegmentFolderCommandTest {
           return null;
         });
     assertThat(out.resolve("run.json")).exists();
+  }
+
+  @Test
+  void timeSettingsReachTheFolderRun(@TempDir Path tmp) throws Exception {
+    String base = "model=[m.json] input=[" + tmp + "] output=[" + tmp.resolve("out") + "]";
+    BatchSettings defaults =
+        MacroThread.call(
+            base + " threads=1",
+            null,
+            () ->
+                SegmentFolderCommand.settings(
+                    SegmentFolderCommand.form().read(null, SegmentFolderCommand::settings)));
+    assertThat(defaults.timeAxis()).isEqualTo(TimeAxis.AUTO);
+    assertThat(defaults.seedFrame()).isZero();
+    BatchSettings chosen =
+        MacroThread.call(
+            base + " threads=1 time=[slices are z planes] seed_frame=3",
+            null,
+            () ->
+                SegmentFolderCommand.settings(
+                    SegmentFolderCommand.form().read(null, SegmentFolderCommand::settings)));
+    assertThat(chosen.timeAxis()).isEqualTo(TimeAxis.SLICES_ARE_Z);
+    assertThat(chosen.seedFrame()).isEqualTo(2);
+    assertThat(chosen.seedsFromNeighbour()).isFalse(); // a macro turns a checkbox on by its key
   }
 }

@@ -149,10 +149,10 @@ class TimeLapseCommandsTest {
       }
     }
     for (Roi roi : made.rois()) {
-      assertThat(roi.getName()).matches("t000\\d-object-\\d{4}");
-      int t = Integer.parseInt(roi.getName().substring(1, 5));
+      assertThat(roi.getName()).matches("object-\\d{4}-t000\\d");
+      int t = Integer.parseInt(roi.getName().substring(13));
       assertThat(roi.getTPosition()).isEqualTo(t);
-      int number = Integer.parseInt(roi.getName().substring(13));
+      int number = Integer.parseInt(roi.getName().substring(7, 11));
       java.awt.Rectangle b = roi.getBounds();
       int cx = b.x + b.width / 2;
       int cy = b.y + b.height / 2;
