@@ -234,7 +234,17 @@ class SegmentCommandsInImageJTest {
         .containsExactly("model", "seeds", "time", "frame_seeds", "seed_frame", "add");
     assertThat(SegmentFolderCommand.form().fields().stream().map(FormField::key).toList())
         .containsExactly(
-            "model", "input", "output", "seeds", "pattern", "threads", "recursive", "overwrite");
+            "model",
+            "input",
+            "output",
+            "seeds",
+            "pattern",
+            "threads",
+            "recursive",
+            "overwrite",
+            "time",
+            "frame_seeds",
+            "seed_frame");
   }
 
   static org.assertj.core.data.Offset<Double> within(double d) {
