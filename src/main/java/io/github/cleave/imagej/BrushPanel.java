@@ -53,7 +53,7 @@ final class BrushPanel extends Frame {
 
   /** What Alt does, shown under the paint choice. */
   static final String ALT_HELP =
-      "Alt held: foreground <-> background; on classes 3 to " + PaintClasses.MAX + ": background";
+      "Alt held: foreground ↔ background; on classes 3 to " + PaintClasses.MAX + ": background";
 
   BrushPanel(BrushSession session) {
     super("Cleave seed brush: " + session.imp.getTitle());

@@ -13,10 +13,7 @@ import io.github.cleave.io.LoadedImage;
 import io.github.cleave.model.LikelihoodModel;
 import io.github.cleave.model.ModelKind;
 import io.github.cleave.model.ModelLearner;
-import io.github.cleave.segment.Illumination;
-import io.github.cleave.segment.SegmentationSettings;
 import java.awt.EventQueue;
-import java.util.Locale;
 import java.util.concurrent.CancellationException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
@@ -44,6 +41,13 @@ import java.util.function.Consumer;
  * the engine returns early, the last contour stays and the status line says {@value #STOPPED}. The
  * live cut marks its kept graph stale, so the next request cuts as if nothing had been stopped.
  * Long work (re-learning, a full solve) moves ImageJ's progress bar ({@link WorkProgress}).
+ *
+ * <p><b>Classes.</b> Strokes of classes 1 and 2 only get the two-class {@link LiveCut}. With a
+ * stroke of class 3 or more, and a stroke of every class 1..K, the likelihoods of K classes are
+ * learned and the preview is {@link LiveClasses}' expansion, re-run in full per request (slow work
+ * throughout: a newer request or Esc stops it between and inside moves) and drawn as one contour
+ * per class ({@link CutContour#ofClasses}); with a class missing, the status line names it. A
+ * change of the class count re-learns at once, so back to two classes the two-class cut returns.
  */
 final class BrushSession implements ImageListener {
   /** Pause after a stroke before the likelihoods are learned again, in milliseconds. */
@@ -198,9 +202,9 @@ final class BrushSession implements ImageListener {
       boolean learn =
           model == null || relearn || modelKind != s.likelihood() || model.classCount() != classes;
       if (classes > 2) {
-        int missing = missingClass(seeds);
+        int missing = CutInputs.missingClass(seeds);
         if (missing > 0) {
-          show(gen, null, statusMissing(missing, classes));
+          show(gen, null, StatusLines.missing(missing, classes));
           return;
         }
       } else if (learn && !LiveCut.hasBothClasses(seeds)) {
@@ -212,7 +216,7 @@ final class BrushSession implements ImageListener {
         progress.phase(
             "learning the likelihoods from the seeds (Esc stops)", 0, 0.5, features.size());
         phase("learn");
-        Raster f = liveFeatures(features, seeds);
+        Raster f = CutInputs.liveFeatures(features, seeds);
         stopIfAsked();
         LikelihoodModel m = ModelLearner.learn(f, seeds, s.likelihood());
         stopIfAsked();
@@ -222,16 +226,16 @@ final class BrushSession implements ImageListener {
         live = null;
         liveClasses = null;
       }
-      Neighborhood nb = neighborhood(s.neighborhood(), volume);
+      Neighborhood nb = CutInputs.neighborhood(s.neighborhood(), volume);
       String key = (volume ? "volume" : "plane " + plane) + " " + nb;
-      SeedLabels cutSeeds = volume ? seeds : plane(seeds, plane);
+      SeedLabels cutSeeds = volume ? seeds : CutInputs.plane(seeds, plane);
       int voxels = volume ? features.size() : features.size() / features.depth();
       if (classes > 2) {
         cutClasses(gen, asked, cutSeeds, s, volume ? -1 : plane, nb, key, progress, voxels);
         return;
       }
       if (live == null || !key.equals(liveKey)) {
-        LiveCut next = new LiveCut(volume ? cutFeatures : plane(cutFeatures, plane), nb);
+        LiveCut next = new LiveCut(volume ? cutFeatures : CutInputs.plane(cutFeatures, plane), nb);
         next.useModel(model);
         live = next;
         liveKey = key;
@@ -248,16 +252,7 @@ final class BrushSession implements ImageListener {
         show(gen, null, STOPPED);
         return;
       }
-      double total = (System.nanoTime() - asked) / 1e6;
-      String line =
-          String.format(
-              Locale.ROOT,
-              "flow value = cut value = %d%s · solve %.1f ms (%s) · stroke to cut %.0f ms",
-              o.flowValue(),
-              o.certified() ? " (checked)" : "",
-              o.solveNanos() / 1e6,
-              o.dynamic() ? "dynamic re-solve" : relearn ? "re-learned, full solve" : "full solve",
-              total);
+      String line = StatusLines.twoClass(o, relearn, asked);
       show(gen, new BrushOverlay.Preview(o.mask(), volume ? -1 : plane, 2), line);
     } catch (CancellationException e) {
       show(gen, null, STOPPED);
@@ -285,7 +280,7 @@ final class BrushSession implements ImageListener {
       int voxels) {
     if (liveClasses == null || !key.equals(classesKey)) {
       LiveClasses next =
-          new LiveClasses(mapPlane < 0 ? cutFeatures : plane(cutFeatures, mapPlane), nb);
+          new LiveClasses(mapPlane < 0 ? cutFeatures : CutInputs.plane(cutFeatures, mapPlane), nb);
       next.useModel(model);
       liveClasses = next;
       classesKey = key;
@@ -298,37 +293,8 @@ final class BrushSession implements ImageListener {
       return; // superseded before the expansion began: the newer request does it
     }
     LiveClasses.Outcome o = liveClasses.update(cutSeeds, s.boundaryPenalty(), s.contrastScale());
-    String line =
-        String.format(
-            Locale.ROOT,
-            "%d classes: full re-cut per stroke · energy %d · %d expansion moves · solve %.1f ms"
-                + " · stroke to cut %.0f ms",
-            k,
-            o.energy(),
-            o.moves(),
-            o.solveNanos() / 1e6,
-            (System.nanoTime() - asked) / 1e6);
+    String line = StatusLines.classes(o, asked);
     show(gen, new BrushOverlay.Preview(o.classes(), mapPlane, k), line);
-  }
-
-  /** The first class 1..K (K the largest label) that no seed marks, or 0 if every class has one. */
-  static int missingClass(SeedLabels seeds) {
-    long[] counts = seeds.countsPerLabel();
-    for (int c = 1; c < counts.length; c++) {
-      if (counts[c] == 0) {
-        return c;
-      }
-    }
-    return counts.length < 3 ? counts.length : 0;
-  }
-
-  /** The status line when class {@code missing} has no stroke among classes 1..{@code classes}. */
-  static String statusMissing(int missing, int classes) {
-    return String.format(
-        Locale.ROOT,
-        "%s needs a stroke: the strokes use classes 1 to %d, and each needs one to see the cut",
-        PaintClasses.describe(missing),
-        classes);
   }
 
   private void phase(String name) {
@@ -342,18 +308,6 @@ final class BrushSession implements ImageListener {
     if (Thread.currentThread().isInterrupted()) {
       throw new CancellationException("stopped");
     }
-  }
-
-  /**
-   * The features of the live cut: flattened by the rolling ball when the pipeline's AUTO rule would
-   * flatten them for these seeds (so that the live contour and the created mask see the same
-   * image), else as they are. Decided again at every re-learning, after a pause in painting.
-   */
-  static Raster liveFeatures(Raster features, SeedLabels seeds) {
-    boolean light = Illumination.isLightBackground(features, seeds);
-    Illumination.Flattening f =
-        Illumination.flatten(features, seeds, SegmentationSettings.DEFAULT_FLATTEN_RADIUS, light);
-    return Illumination.shouldFlatten(f) ? f.flattened() : features;
   }
 
   private void show(long gen, BrushOverlay.Preview next, String line) {
@@ -373,17 +327,6 @@ final class BrushSession implements ImageListener {
           redraw();
           status.accept(shown);
         });
-  }
-
-  /** The neighbourhood to cut with: the chosen one if it fits, else the default. */
-  static Neighborhood neighborhood(int chosen, boolean volume) {
-    if (chosen != 0) {
-      Neighborhood nb = Neighborhood.of(chosen);
-      if (nb.isThreeDimensional() == volume) {
-        return nb;
-      }
-    }
-    return Neighborhood.of(volume ? 6 : 8);
   }
 
   /** Redraws the overlay: the image's own, the seeds, the stroke being drawn, the contours. */
@@ -446,23 +389,6 @@ final class BrushSession implements ImageListener {
     latest.incrementAndGet();
     worker.shutdownNow();
     timer.shutdownNow();
-  }
-
-  static Raster plane(Raster r, int z) {
-    int n = r.width() * r.height();
-    float[][] out = new float[r.channelCount()][];
-    for (int c = 0; c < out.length; c++) {
-      out[c] = new float[n];
-      System.arraycopy(r.channel(c), z * n, out[c], 0, n);
-    }
-    return new Raster(r.width(), r.height(), 1, out, r.voxelSize(), r.kind());
-  }
-
-  static SeedLabels plane(SeedLabels s, int z) {
-    int n = s.width() * s.height();
-    byte[] out = new byte[n];
-    System.arraycopy(s.labels(), z * n, out, 0, n);
-    return new SeedLabels(s.width(), s.height(), 1, out);
   }
 
   private static java.util.concurrent.ThreadFactory daemon(String name) {

@@ -48,8 +48,8 @@ final class CutContour {
   }
 
   /**
-   * The outlines of every class but the background on plane {@code z} of {@code imp}, in class
-   * order (empty if the plane holds none).
+   * The outlines of every class but the background on plane {@code z} of {@code imp}, highest class
+   * first (empty if the plane holds none).
    *
    * @param classes the class map of one plane or of the whole volume (classes 1..K), or null
    * @param mapPlane the plane of {@code classes}, or -1 if it covers the volume
@@ -65,7 +65,7 @@ final class CutContour {
     for (byte b : plane) {
       present[b & 0xff] = true;
     }
-    for (int c = 1; c <= classCount; c++) {
+    for (int c = classCount; c >= 1; c--) { // the lower class on top: foreground last
       if (c != SeedLabels.BACKGROUND && present[c]) {
         String name = "cut-" + PaintClasses.roiPrefix(c);
         Roi r = trace(plane, c, new Color(SeedColours.of(c)), name, imp, z);

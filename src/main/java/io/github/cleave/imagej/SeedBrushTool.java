@@ -75,7 +75,7 @@ final class SeedBrushTool extends PlugInTool {
 
   @Override
   public String getToolName() {
-    return "Cleave seed brush (Alt: foreground <-> background; on classes 3+: background)";
+    return "Cleave seed brush (Alt: foreground ↔ background; on classes 3+: background)";
   }
 
   @Override

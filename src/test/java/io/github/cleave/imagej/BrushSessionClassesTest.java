@@ -94,7 +94,7 @@ class BrushSessionClassesTest {
     BrushDriver.waitFor(() -> fresh.lastMask() != null, 60_000, "fresh two-class cut");
     assertThat(session.lastMask()).isEqualTo(fresh.lastMask());
     SeedLabels seeds = labels(session);
-    Raster f = BrushSession.liveFeatures(features(imp), seeds);
+    Raster f = CutInputs.liveFeatures(features(imp), seeds);
     LiveCut scratch = new LiveCut(f, Neighborhood.of(8));
     scratch.useModel(ModelLearner.learn(f, seeds, ModelKind.AUTO));
     assertThat(session.lastMask())
@@ -118,7 +118,7 @@ class BrushSessionClassesTest {
             ClassImages.stroke(4, 53, 63, 32.5f)));
     EventQueue.invokeAndWait(() -> session.request(false));
     BrushDriver.waitFor(() -> !lines.isEmpty(), 60_000, "status line");
-    assertThat(lines).containsExactly(BrushSession.statusMissing(3, 4));
+    assertThat(lines).containsExactly(StatusLines.missing(3, 4));
     assertThat(lines.get(0)).startsWith("class 3 (bluish green) needs a stroke");
     assertThat(session.lastClasses()).isNull();
     assertThat(session.lastMask()).isNull();
@@ -129,8 +129,8 @@ class BrushSessionClassesTest {
     assertThat(lines.get(lines.size() - 1)).startsWith("4 classes: full re-cut per stroke");
     // without class 1: the foreground is named
     SeedLabels noForeground = new SeedLabels(2, 1, 1, new byte[] {2, 3}); // classes 2 and 3 only
-    assertThat(BrushSession.missingClass(noForeground)).isEqualTo(1);
-    assertThat(BrushSession.statusMissing(1, 3)).startsWith("class 1 (foreground) needs a stroke");
+    assertThat(CutInputs.missingClass(noForeground)).isEqualTo(1);
+    assertThat(StatusLines.missing(1, 3)).startsWith("class 1 (foreground) needs a stroke");
     EventQueue.invokeAndWait(session::close);
   }
 
@@ -188,7 +188,7 @@ class BrushSessionClassesTest {
   }
 
   static byte[] expansion(ImagePlus imp, SeedLabels seeds, SeedLabels learnedFrom) {
-    Raster f = BrushSession.liveFeatures(features(imp), learnedFrom);
+    Raster f = CutInputs.liveFeatures(features(imp), learnedFrom);
     LikelihoodModel m = ModelLearner.learn(f, learnedFrom, ModelKind.AUTO);
     float[][] costs = new float[m.classCount()][f.size()];
     m.costs(f, costs);

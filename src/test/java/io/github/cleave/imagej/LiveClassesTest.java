@@ -43,7 +43,7 @@ class LiveClassesTest {
         LiveCutTest.paint(rnd, labels, w, h, d, c);
       }
       SeedLabels seeds = new SeedLabels(w, h, d, labels.clone());
-      if (BrushSession.missingClass(seeds) != 0) {
+      if (CutInputs.missingClass(seeds) != 0) {
         continue; // a later stroke covered a class entirely: not a case the session cuts
       }
       cases++;
