@@ -4,7 +4,6 @@ import ij.IJ;
 import io.github.cleave.model.ModelKind;
 import java.awt.Button;
 import java.awt.Checkbox;
-import java.awt.CheckboxGroup;
 import java.awt.Choice;
 import java.awt.EventQueue;
 import java.awt.Frame;
@@ -21,11 +20,12 @@ import java.util.Locale;
 
 /**
  * The seed brush's control panel: a small window that stays open beside the image (it never blocks
- * ImageJ). Top: what a stroke paints and the brush width; middle: the cut's settings, the boundary
- * penalty as a slider on a log scale from {@value #LAMBDA_MIN} to {@value #LAMBDA_MAX} with its
- * number (the contour follows while the slider moves); bottom: actions and a status line with the
- * flow value (= cut value) and the solve time. Esc pressed on the panel stops a running cut; Ctrl+Z
- * (Cmd+Z) is Undo. Event-thread only.
+ * ImageJ). Top: what a stroke paints (foreground, background, a further class 3..{@value
+ * PaintClasses#MAX} by number and palette colour, or the eraser; a line says what Alt does) and the
+ * brush width; middle: the cut's settings, the boundary penalty as a slider on a log scale from
+ * {@value #LAMBDA_MIN} to {@value #LAMBDA_MAX} with its number (the contour follows while the
+ * slider moves); bottom: actions and a status line with the flow value (= cut value) and the solve
+ * time. Esc pressed on the panel stops a running cut; Ctrl+Z (Cmd+Z) is Undo. Event-thread only.
  */
 final class BrushPanel extends Frame {
   private static final long serialVersionUID = 1L;
@@ -35,7 +35,9 @@ final class BrushPanel extends Frame {
 
   private final transient BrushSession session;
   private final transient BrushActions actions;
-  private final Label status = new Label("paint a foreground and a background stroke", Label.LEFT);
+  private final Label status =
+      new Label(
+          "paint a foreground and a background stroke (further classes: 3 and up)", Label.LEFT);
   private final Scrollbar lambdaSlider =
       new Scrollbar(Scrollbar.HORIZONTAL, 0, 1, 0, SLIDER_STEPS + 1);
   private final TextField lambdaField = new TextField(6);
@@ -44,6 +46,14 @@ final class BrushPanel extends Frame {
   private final Choice neighborhood = new Choice();
   private final Choice likelihood = new Choice();
   private final Checkbox volume = new Checkbox("Cut the stack as one volume (3D)");
+  private final Choice paint = new Choice();
+
+  /** The paint choice's last item. */
+  static final String ERASER = "Eraser";
+
+  /** What Alt does, shown under the paint choice. */
+  static final String ALT_HELP =
+      "Alt held: foreground ↔ background; on classes 3 to " + PaintClasses.MAX + ": background";
 
   BrushPanel(BrushSession session) {
     super("Cleave seed brush: " + session.imp.getTitle());
@@ -56,20 +66,13 @@ final class BrushPanel extends Frame {
     g.fill = GridBagConstraints.HORIZONTAL;
     g.gridy = 0;
 
-    CheckboxGroup paint = new CheckboxGroup();
-    Panel modes = new Panel();
-    for (BrushSettings.Mode m : BrushSettings.Mode.values()) {
-      String text =
-          switch (m) {
-            case FOREGROUND -> "Foreground (orange)";
-            case BACKGROUND -> "Background (blue)";
-            case ERASER -> "Eraser";
-          };
-      Checkbox box = new Checkbox(text, paint, m == BrushSettings.Mode.FOREGROUND);
-      box.addItemListener(e -> session.setSettings(session.settings().withMode(m), false));
-      modes.add(box);
+    for (int c = 1; c <= PaintClasses.MAX; c++) {
+      paint.add(PaintClasses.label(c));
     }
-    row(g, "Paint (Alt: other class)", modes);
+    paint.add(ERASER);
+    paint.addItemListener(e -> session.setSettings(session.settings().withPaint(paintOf()), false));
+    row(g, "Paint", paint);
+    row(g, "", new Label(ALT_HELP));
     widthField.addTextListener(
         e -> {
           float w = number(widthField.getText(), -1);
@@ -157,6 +160,18 @@ final class BrushPanel extends Frame {
   void showStatus(String line) {
     EventQueue.invokeLater(() -> status.setText(line));
     IJ.showStatus("Cleave: " + line);
+  }
+
+  /** The paint choice's value: a class 1..{@value PaintClasses#MAX}, or the eraser (0). */
+  private int paintOf() {
+    int i = paint.getSelectedIndex();
+    return i < PaintClasses.MAX ? i + 1 : BrushSettings.ERASER;
+  }
+
+  /** Chooses what strokes paint, as a user would (a class, or {@link BrushSettings#ERASER}). */
+  void choosePaint(int c) {
+    paint.select(c == BrushSettings.ERASER ? PaintClasses.MAX : c - 1);
+    session.setSettings(session.settings().withPaint(paintOf()), false);
   }
 
   String statusText() {

@@ -13,11 +13,7 @@ import io.github.cleave.io.LoadedImage;
 import io.github.cleave.model.LikelihoodModel;
 import io.github.cleave.model.ModelKind;
 import io.github.cleave.model.ModelLearner;
-import io.github.cleave.segment.Illumination;
-import io.github.cleave.segment.SegmentationSettings;
 import java.awt.EventQueue;
-import java.util.List;
-import java.util.Locale;
 import java.util.concurrent.CancellationException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
@@ -45,6 +41,13 @@ import java.util.function.Consumer;
  * the engine returns early, the last contour stays and the status line says {@value #STOPPED}. The
  * live cut marks its kept graph stale, so the next request cuts as if nothing had been stopped.
  * Long work (re-learning, a full solve) moves ImageJ's progress bar ({@link WorkProgress}).
+ *
+ * <p><b>Classes.</b> Strokes of classes 1 and 2 only get the two-class {@link LiveCut}. With a
+ * stroke of class 3 or more, and a stroke of every class 1..K, the likelihoods of K classes are
+ * learned and the preview is {@link LiveClasses}' expansion, re-run in full per request (slow work
+ * throughout: a newer request or Esc stops it between and inside moves) and drawn as one contour
+ * per class ({@link CutContour#ofClasses}); with a class missing, the status line names it. A
+ * change of the class count re-learns at once, so back to two classes the two-class cut returns.
  */
 final class BrushSession implements ImageListener {
   /** Pause after a stroke before the likelihoods are learned again, in milliseconds. */
@@ -76,12 +79,12 @@ final class BrushSession implements ImageListener {
   private LikelihoodModel model;
   private ModelKind modelKind;
 
-  // event thread only
-  private byte[] mask; // last mask shown: one plane (plane mode) or the volume
-  private Roi contour; // the contour of mask on contourPlane, traced once per mask and plane
-  private byte[] contourMask;
-  private int contourPlane = -2;
-  private int maskPlane = -1; // the plane of mask, or -1 for a volume
+  private LiveClasses liveClasses; // the preview of three or more classes, or null
+  private String classesKey;
+
+  // event thread only (preview is read by tests on other threads)
+  private final BrushOverlay overlay;
+  private volatile BrushOverlay.Preview preview; // the last preview shown, or null
   private int shownPlane = -1;
   private Roi drawing; // the stroke being drawn
   private boolean previewExplained; // the status line said once what the contour is
@@ -95,6 +98,7 @@ final class BrushSession implements ImageListener {
         r.selectChannels(r.kind() == PixelKind.RGB ? new int[] {0, 1, 2} : new int[] {0});
     this.strokes = new SeedStrokes(r.width(), r.height(), r.depth());
     this.original = imp.getOverlay() == null ? null : imp.getOverlay().duplicate();
+    this.overlay = new BrushOverlay(imp, original);
     this.worker = Executors.newSingleThreadExecutor(daemon("Cleave live cut"));
     this.timer = Executors.newSingleThreadScheduledExecutor(daemon("Cleave pause timer"));
     ImagePlus.addImageListener(this);
@@ -192,18 +196,27 @@ final class BrushSession implements ImageListener {
       return; // a newer request replaces this one
     }
     stop.begin(gen);
-    int voxels = features.size();
     try (WorkProgress progress = WorkProgress.start()) {
       SeedLabels seeds = snap.labels();
-      boolean volume = s.volume() && features.depth() > 1;
-      if (model == null || relearn || modelKind != s.likelihood()) {
-        if (!LiveCut.hasBothClasses(seeds)) {
-          show(gen, null, -1, "paint a foreground and a background stroke to see the cut");
+      int classes = Math.max(2, seeds.countsPerLabel().length - 1);
+      boolean learn =
+          model == null || relearn || modelKind != s.likelihood() || model.classCount() != classes;
+      if (classes > 2) {
+        int missing = CutInputs.missingClass(seeds);
+        if (missing > 0) {
+          show(gen, null, StatusLines.missing(missing, classes));
           return;
         }
-        progress.phase("learning the likelihoods from the seeds (Esc stops)", 0, 0.5, voxels);
+      } else if (learn && !LiveCut.hasBothClasses(seeds)) {
+        show(gen, null, "paint a foreground and a background stroke to see the cut");
+        return;
+      }
+      boolean volume = s.volume() && features.depth() > 1;
+      if (learn) {
+        progress.phase(
+            "learning the likelihoods from the seeds (Esc stops)", 0, 0.5, features.size());
         phase("learn");
-        Raster f = liveFeatures(seeds);
+        Raster f = CutInputs.liveFeatures(features, seeds);
         stopIfAsked();
         LikelihoodModel m = ModelLearner.learn(f, seeds, s.likelihood());
         stopIfAsked();
@@ -211,18 +224,24 @@ final class BrushSession implements ImageListener {
         model = m;
         modelKind = s.likelihood();
         live = null;
+        liveClasses = null;
       }
-      Neighborhood nb = neighborhood(s.neighborhood(), volume);
+      Neighborhood nb = CutInputs.neighborhood(s.neighborhood(), volume);
       String key = (volume ? "volume" : "plane " + plane) + " " + nb;
+      SeedLabels cutSeeds = volume ? seeds : CutInputs.plane(seeds, plane);
+      int voxels = volume ? features.size() : features.size() / features.depth();
+      if (classes > 2) {
+        cutClasses(gen, asked, cutSeeds, s, volume ? -1 : plane, nb, key, progress, voxels);
+        return;
+      }
       if (live == null || !key.equals(liveKey)) {
-        LiveCut next = new LiveCut(volume ? cutFeatures : plane(cutFeatures, plane), nb);
+        LiveCut next = new LiveCut(volume ? cutFeatures : CutInputs.plane(cutFeatures, plane), nb);
         next.useModel(model);
         live = next;
         liveKey = key;
       }
-      progress.phase("cutting (Esc stops)", 0.5, 0.95, volume ? voxels : voxels / features.depth());
+      progress.phase("cutting (Esc stops)", 0.5, 0.95, voxels);
       phase("solve");
-      SeedLabels cutSeeds = volume ? seeds : plane(seeds, plane);
       boolean dynamic = live.wouldContinue(s.boundaryPenalty(), s.contrastScale());
       stop.slow(!dynamic);
       if (gen != latest.get() && !dynamic) {
@@ -230,27 +249,52 @@ final class BrushSession implements ImageListener {
       }
       LiveCut.Outcome o = live.update(cutSeeds, s.boundaryPenalty(), s.contrastScale());
       if (o.stopped()) {
-        show(gen, null, -1, STOPPED);
+        show(gen, null, STOPPED);
         return;
       }
-      double total = (System.nanoTime() - asked) / 1e6;
-      String line =
-          String.format(
-              Locale.ROOT,
-              "flow value = cut value = %d%s · solve %.1f ms (%s) · stroke to cut %.0f ms",
-              o.flowValue(),
-              o.certified() ? " (checked)" : "",
-              o.solveNanos() / 1e6,
-              o.dynamic() ? "dynamic re-solve" : relearn ? "re-learned, full solve" : "full solve",
-              total);
-      show(gen, o.mask(), volume ? -1 : plane, line);
+      String line = StatusLines.twoClass(o, relearn, asked);
+      show(gen, new BrushOverlay.Preview(o.mask(), volume ? -1 : plane, 2), line);
     } catch (CancellationException e) {
-      show(gen, null, -1, STOPPED);
+      show(gen, null, STOPPED);
     } catch (RuntimeException e) {
-      show(gen, null, -1, "cannot cut: " + e.getMessage());
+      show(gen, null, "cannot cut: " + e.getMessage());
     } finally {
       stop.end(); // an Esc handled here must not stop the next request
     }
+  }
+
+  /**
+   * The preview of three or more classes ({@link LiveClasses}): the whole expansion again for every
+   * request, slow work that a newer request or Esc cuts short (between expansion moves and inside
+   * their solves); a stop throws {@link CancellationException} to {@link #cut}.
+   */
+  private void cutClasses(
+      long gen,
+      long asked,
+      SeedLabels cutSeeds,
+      BrushSettings s,
+      int mapPlane,
+      Neighborhood nb,
+      String key,
+      WorkProgress progress,
+      int voxels) {
+    if (liveClasses == null || !key.equals(classesKey)) {
+      LiveClasses next =
+          new LiveClasses(mapPlane < 0 ? cutFeatures : CutInputs.plane(cutFeatures, mapPlane), nb);
+      next.useModel(model);
+      liveClasses = next;
+      classesKey = key;
+    }
+    int k = liveClasses.classCount();
+    progress.phase("cutting " + k + " classes (Esc stops)", 0.5, 0.95, voxels);
+    phase("solve");
+    stop.slow(true);
+    if (gen != latest.get()) {
+      return; // superseded before the expansion began: the newer request does it
+    }
+    LiveClasses.Outcome o = liveClasses.update(cutSeeds, s.boundaryPenalty(), s.contrastScale());
+    String line = StatusLines.classes(o, asked);
+    show(gen, new BrushOverlay.Preview(o.classes(), mapPlane, k), line);
   }
 
   private void phase(String name) {
@@ -266,28 +310,15 @@ final class BrushSession implements ImageListener {
     }
   }
 
-  /**
-   * The features of the live cut: flattened by the rolling ball when the pipeline's AUTO rule would
-   * flatten them for these seeds (so that the live contour and the created mask see the same
-   * image), else as they are. Decided again at every re-learning, after a pause in painting.
-   */
-  private Raster liveFeatures(SeedLabels seeds) {
-    boolean light = Illumination.isLightBackground(features, seeds);
-    Illumination.Flattening f =
-        Illumination.flatten(features, seeds, SegmentationSettings.DEFAULT_FLATTEN_RADIUS, light);
-    return Illumination.shouldFlatten(f) ? f.flattened() : features;
-  }
-
-  private void show(long gen, byte[] newMask, int plane, String line) {
+  private void show(long gen, BrushOverlay.Preview next, String line) {
     EventQueue.invokeLater(
         () -> {
           if (gen != latest.get()) {
             return; // stale
           }
           String shown = line;
-          if (newMask != null) {
-            mask = newMask;
-            maskPlane = plane;
+          if (next != null) {
+            preview = next;
             if (!previewExplained) { // once per session, with the first contour
               previewExplained = true;
               shown = line + " · " + PREVIEW;
@@ -298,54 +329,29 @@ final class BrushSession implements ImageListener {
         });
   }
 
-  /** The neighbourhood to cut with: the chosen one if it fits, else the default. */
-  static Neighborhood neighborhood(int chosen, boolean volume) {
-    if (chosen != 0) {
-      Neighborhood nb = Neighborhood.of(chosen);
-      if (nb.isThreeDimensional() == volume) {
-        return nb;
-      }
-    }
-    return Neighborhood.of(volume ? 6 : 8);
-  }
-
-  /** Redraws the overlay: the image's own, then the strokes, the stroke being drawn, the cut. */
+  /** Redraws the overlay: the image's own, the seeds, the stroke being drawn, the contours. */
   void redraw() {
-    Overlay ov = new Overlay();
-    if (original != null) {
-      for (Roi r : original.toArray()) {
-        ov.add(r);
-      }
-    }
-    boolean stack = imp.getStackSize() > 1;
-    boolean hyper = imp.isHyperStack();
-    List<SeedStrokes.Stroke> list = strokes.strokes();
-    for (int i = 0; i < list.size(); i++) {
-      ov.add(list.get(i).toRoi(i + 1, stack, hyper));
-    }
-    if (drawing != null) {
-      ov.add(drawing);
-    }
     int z = plane();
-    if (mask != contourMask || z != contourPlane) { // strokes being drawn leave the cut as it is
-      contour = CutContour.of(mask, maskPlane, imp, z);
-      contourMask = mask;
-      contourPlane = z;
-    }
-    if (contour != null) {
-      ov.add(contour);
-    }
-    shownPlane = plane();
-    imp.setOverlay(ov);
+    imp.setOverlay(overlay.build(strokes.strokes(), strokes.baseLayer(), drawing, preview, z));
+    shownPlane = z;
   }
 
-  /** The foreground mask of the last cut, or null: one plane or the whole volume. */
+  /** The foreground mask of the last two-class preview, or null: one plane or the whole volume. */
   byte[] lastMask() {
-    return mask;
+    BrushOverlay.Preview p = preview;
+    return p != null && p.twoClass() ? p.data() : null;
   }
 
+  /** The class map (1..K) of the last preview of three or more classes, or null. */
+  byte[] lastClasses() {
+    BrushOverlay.Preview p = preview;
+    return p != null && !p.twoClass() ? p.data() : null;
+  }
+
+  /** The plane of the last preview (0-based), or -1 for the volume or none. */
   int lastMaskPlane() {
-    return maskPlane;
+    BrushOverlay.Preview p = preview;
+    return p == null ? -1 : p.plane();
   }
 
   @Override
@@ -383,23 +389,6 @@ final class BrushSession implements ImageListener {
     latest.incrementAndGet();
     worker.shutdownNow();
     timer.shutdownNow();
-  }
-
-  static Raster plane(Raster r, int z) {
-    int n = r.width() * r.height();
-    float[][] out = new float[r.channelCount()][];
-    for (int c = 0; c < out.length; c++) {
-      out[c] = new float[n];
-      System.arraycopy(r.channel(c), z * n, out[c], 0, n);
-    }
-    return new Raster(r.width(), r.height(), 1, out, r.voxelSize(), r.kind());
-  }
-
-  static SeedLabels plane(SeedLabels s, int z) {
-    int n = s.width() * s.height();
-    byte[] out = new byte[n];
-    System.arraycopy(s.labels(), z * n, out, 0, n);
-    return new SeedLabels(s.width(), s.height(), 1, out);
   }
 
   private static java.util.concurrent.ThreadFactory daemon(String name) {

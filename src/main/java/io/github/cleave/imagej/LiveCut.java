@@ -29,7 +29,8 @@ import io.github.cleave.model.LikelihoodModel;
  * <p>This is the plain minimum cut of the features it is given (the brush session gives it the
  * features flattened when the pipeline's AUTO rule would flatten them; there are no refinement
  * rounds, edge placement or object rules); the commands that make masks run the whole pipeline.
- * Labels above 2 count as no seed here. Not thread-safe: one worker thread owns an instance.
+ * Labels above 2 count as no seed here (the brush session gives seeds of three or more classes to
+ * {@link LiveClasses} instead). Not thread-safe: one worker thread owns an instance.
  *
  * <p><b>Stopping.</b> If the calling thread is interrupted while the engine solves, {@link #update}
  * returns at once with {@link Outcome#stopped()} (no mask; the interrupt flag stays set, as the

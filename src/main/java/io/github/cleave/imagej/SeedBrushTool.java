@@ -19,9 +19,10 @@ import java.util.Map;
 /**
  * The seed brush: a toolbar tool that paints strokes on images that have a seed brush session
  * ({@link BrushSession}). A drag paints a stroke of the panel's class and width; with Alt held it
- * paints the other class; in eraser mode it removes the strokes it touches. Releasing the mouse
- * hands the stroke to the session, which redraws and recuts. On an image without a session the tool
- * does nothing.
+ * paints the other class of foreground and background, and background when the panel's class is a
+ * further class (3 and up: {@link PaintClasses#stroke}); in eraser mode it removes the strokes it
+ * touches. Releasing the mouse hands the stroke to the session, which redraws and recuts. On an
+ * image without a session the tool does nothing.
  *
  * <p>ImageJ keeps one tool per toolbar slot, so there is one instance ({@link #get()}), which knows
  * every image being painted. While any image is painted, ImageJ's Edit &gt; Undo (Ctrl+Z) on it
@@ -74,7 +75,7 @@ final class SeedBrushTool extends PlugInTool {
 
   @Override
   public String getToolName() {
-    return "Cleave seed brush (Alt: other class)";
+    return "Cleave seed brush (Alt: foreground ↔ background; on classes 3+: background)";
   }
 
   @Override
@@ -89,10 +90,8 @@ final class SeedBrushTool extends PlugInTool {
       return;
     }
     BrushSettings b = s.settings();
-    erasing = b.mode() == BrushSettings.Mode.ERASER;
-    int chosen =
-        b.mode() == BrushSettings.Mode.BACKGROUND ? SeedLabels.BACKGROUND : SeedLabels.FOREGROUND;
-    label = e.isAltDown() ? 3 - chosen : chosen;
+    erasing = b.erasing();
+    label = erasing ? SeedLabels.FOREGROUND : PaintClasses.stroke(b.paint(), e.isAltDown());
     count = 0;
     add(imp, e);
     s.drawing(preview(s));

@@ -14,9 +14,10 @@ import java.util.concurrent.ConcurrentHashMap;
 
 /**
  * The seed strokes painted on one image, with undo. A stroke is a polyline in image pixel
- * coordinates with a width, a class (1 foreground, 2 background) and the plane it was painted on
- * (0-based). A base layer of seed labels (loaded from a seed label image) lies under the strokes;
- * strokes painted later win where they overlap it and each other.
+ * coordinates with a width, a class (1 foreground, 2 background, 3..{@value PaintClasses#MAX}
+ * further classes) and the plane it was painted on (0-based). A base layer of seed labels (loaded
+ * from a seed label image) lies under the strokes; strokes painted later win where they overlap it
+ * and each other.
  *
  * <p>Every change (add, erase, clear, load) pushes the previous state, so {@link #undo()} restores
  * it. States are immutable lists, so a snapshot taken by the cutting thread stays valid. Not
@@ -25,7 +26,11 @@ import java.util.concurrent.ConcurrentHashMap;
 final class SeedStrokes {
   /** One stroke; immutable. */
   record Stroke(float[] xs, float[] ys, float width, int label, int plane) {
-    /** The stroke as an ImageJ line ROI named for its class, coloured, on its plane (1-based). */
+    /**
+     * The stroke as an ImageJ line ROI in its class's palette colour, on its plane (1-based), named
+     * by the seed ROI convention: {@code foreground-INDEX}, {@code background-INDEX}, {@code
+     * classN-INDEX} for a further class N.
+     */
     Roi toRoi(int index, boolean stack) {
       return toRoi(index, stack, false);
     }
@@ -38,8 +43,7 @@ final class SeedStrokes {
       PolygonRoi roi = new PolygonRoi(x, y, x.length, Roi.POLYLINE);
       roi.setStrokeWidth(width);
       roi.setStrokeColor(new Color(SeedColours.of(label)));
-      roi.setName(
-          String.format(Locale.ROOT, "%s-%d", label == 1 ? "foreground" : "background", index));
+      roi.setName(String.format(Locale.ROOT, "%s-%d", PaintClasses.roiPrefix(label), index));
       if (hyper) {
         roi.setPosition(0, plane + 1, 0);
       } else if (stack) {
@@ -66,6 +70,11 @@ final class SeedStrokes {
 
   List<Stroke> strokes() {
     return strokes;
+  }
+
+  /** The loaded seed labels under the strokes (every plane; do not modify), or null. */
+  byte[] baseLayer() {
+    return base;
   }
 
   boolean isEmpty() {

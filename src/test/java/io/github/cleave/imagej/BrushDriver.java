@@ -33,10 +33,12 @@ import javax.imageio.ImageIO;
  * painted lengths go to standard output), waits for the live cut, presses "Create mask", then
  * clicks the boundary penalty slider's track and waits for the new cut; finally paints a third
  * stroke and presses Ctrl+Z on the image window (ImageJ's Edit &gt; Undo, which the brush takes
- * over). Every mouse move, click and key press goes through the {@code xdotool} program on this
- * JVM's display ({@link Xdo}); java.awt.Robot only takes the screenshots and waits for the event
- * queue to drain after a window is raised. Writes what it saw to {@code OUT/result.properties} and
- * screenshots to {@code OUT}; exits 0 when the scenario ran (the test judges the values).
+ * over), then chooses class 3 in the panel and paints a stroke beside the background stroke, and
+ * waits for the three-class preview. Every mouse move, click and key press goes through the {@code
+ * xdotool} program on this JVM's display ({@link Xdo}); java.awt.Robot only takes the screenshots
+ * and waits for the event queue to drain after a window is raised. Writes what it saw to {@code
+ * OUT/result.properties} and screenshots to {@code OUT}; exits 0 when the scenario ran (the test
+ * judges the values).
  */
 public final class BrushDriver {
   static final Path SAMPLES = Path.of("sample-images");
@@ -175,12 +177,43 @@ public final class BrushDriver {
     holds(() -> overlayStrokes(imp) == 2, 5_000); // the redraw runs on the event thread
     result.setProperty("strokesAfterUndo", "" + session.strokes.strokes().size());
     result.setProperty("overlayStrokesAfterUndo", "" + overlayStrokes(imp));
+
+    // a third class: chosen in the panel, painted beside the background stroke
+    EventQueue.invokeAndWait(() -> panel.choosePaint(3));
+    drag(robot, imp, beside(plan.background(), 6, imp.getWidth()), false);
+    waitFor(() -> session.strokes.strokes().size() == 3, 10_000, "class-3 stroke");
+    result.setProperty("stroke3", "" + session.strokes.strokes().get(2).label());
+    waitFor(
+        () -> session.lastClasses() != null && panel.statusText().startsWith("3 classes"),
+        60_000,
+        "three-class preview (status: " + panel.statusText() + ")");
+    result.setProperty("classesStatus", panel.statusText());
+    holds(() -> overlayNamed(imp, "cut-class3"), 5_000);
+    result.setProperty("classContour", "" + overlayNamed(imp, "cut-class3"));
+    save(robot, shots.resolve("brush-classes.png"));
     EventQueue.invokeAndWait(panel::dispose);
     result.setProperty("overlayRestored", "" + (imp.getOverlay() == null));
     try (var out = Files.newOutputStream(shots.resolve("result.properties"))) {
       result.store(out, "seed brush scenario");
     }
     Runtime.getRuntime().halt(0); // no quit: ImageJ would save its preferences
+  }
+
+  /** Whether the image's overlay holds a ROI of this name. */
+  private static boolean overlayNamed(ImagePlus imp, String name) {
+    ij.gui.Overlay ov = imp.getOverlay();
+    return ov != null
+        && java.util.Arrays.stream(ov.toArray()).anyMatch(r -> name.equals(r.getName()));
+  }
+
+  /**
+   * The polyline moved {@code dx} pixels to the right, or to the left if it would leave the image.
+   */
+  private static StrokePlan.Polyline beside(StrokePlan.Polyline line, int dx, int width) {
+    int max = java.util.Arrays.stream(line.xs()).max().orElse(0);
+    int shift = max + dx < width ? dx : -dx;
+    return new StrokePlan.Polyline(
+        java.util.Arrays.stream(line.xs()).map(x -> x + shift).toArray(), line.ys().clone());
   }
 
   /** The stroke ROIs in the image's overlay. */

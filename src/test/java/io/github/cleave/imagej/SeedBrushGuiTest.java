@@ -24,8 +24,9 @@ import org.junit.jupiter.api.io.TempDir;
  * give a mask within Dice 0.9 of it; moving the boundary penalty slider up changes the cut to a
  * shorter boundary (a larger λ never lengthens the minimum cut's boundary term; pixel-edge count
  * used as its proxy, common practice, no source); Ctrl+Z on the image undoes the last stroke and
- * its overlay. Screenshots of the panel and the contour, and the driver's log with the strokes'
- * lengths, are left in {@code target/gui/}.
+ * its overlay; class 3 chosen in the panel paints class-3 strokes and turns the preview into the
+ * three-class expansion with a class-3 contour. Screenshots of the panel and the contour, and the
+ * driver's log with the strokes' lengths, are left in {@code target/gui/}.
  */
 class SeedBrushGuiTest {
   @Test
@@ -97,5 +98,10 @@ class SeedBrushGuiTest {
     assertThat(r.getProperty("strokesAfterUndo")).isEqualTo("2");
     assertThat(r.getProperty("overlayStrokesAfterUndo")).isEqualTo("2");
     assertThat(out.resolve("brush-contour.png")).exists();
+    // class 3 chosen in the panel: its stroke carries it, the preview expands three classes and
+    // draws class 3's contour
+    assertThat(r.getProperty("stroke3")).isEqualTo("3");
+    assertThat(r.getProperty("classesStatus")).startsWith("3 classes: full re-cut per stroke");
+    assertThat(r.getProperty("classContour")).isEqualTo("true");
   }
 }

@@ -25,7 +25,9 @@ class SeedStrokesTest {
       xs[i] = (float) (rnd.nextDouble() * w);
       ys[i] = (float) (rnd.nextDouble() * h);
     }
-    return new SeedStrokes.Stroke(xs, ys, 1 + rnd.nextInt(9), 1 + rnd.nextInt(2), rnd.nextInt(d));
+    // every class the brush paints: the ROI names must carry each one through the zip
+    int label = 1 + rnd.nextInt(PaintClasses.MAX);
+    return new SeedStrokes.Stroke(xs, ys, 1 + rnd.nextInt(9), label, rnd.nextInt(d));
   }
 
   @Test
@@ -54,6 +56,76 @@ class SeedStrokesTest {
       SeedLabels fromZip = SeedFiles.read(zip, w, h, d);
       assertThat(strokes.labels().labels()).as("seed %d", seed).isEqualTo(fromZip.labels());
     }
+  }
+
+  @Test
+  void furtherClassesAreNamedAndColouredByTheRoiConvention() {
+    // names: io.RoiSeeds' convention (foreground, background, classN); colours: the Okabe–Ito
+    // palette of render.SeedColours (bluish green #009E73 for class 3; values from memory there)
+    int[] colours = {0xE69F00, 0x56B4E9, 0x009E73, 0xF0E442, 0x0072B2, 0xD55E00, 0xCC79A7};
+    String[] names = {"foreground", "background", "class3", "class4", "class5", "class6", "class7"};
+    for (int c = 1; c <= PaintClasses.MAX; c++) {
+      var stroke = new SeedStrokes.Stroke(new float[] {5, 20}, new float[] {5, 5}, 3, c, 1);
+      var roi = stroke.toRoi(4, true);
+      assertThat(roi.getName()).isEqualTo(names[c - 1] + "-4");
+      assertThat(roi.getStrokeColor().getRGB() & 0xFFFFFF).isEqualTo(colours[c - 1]);
+      assertThat(roi.getPosition()).isEqualTo(2);
+    }
+    var third = new SeedStrokes.Stroke(new float[] {5, 20}, new float[] {5, 5}, 3, 3, 0);
+    assertThat(third.toRoi(1, false).getName()).isEqualTo("class3-1");
+    assertThat(third.toRoi(1, false).getStrokeColor()).isEqualTo(new java.awt.Color(0x009E73));
+  }
+
+  @Test
+  void loadedSeedsOfFurtherClassesShowInTheirColours() {
+    int w = 30;
+    int h = 20;
+    byte[] labels = new byte[w * h * 2];
+    labels[5 * w + 5] = 1;
+    labels[6 * w + 6] = 2;
+    labels[w * h + 7 * w + 7] = 3; // plane 2 only
+    labels[w * h + 8 * w + 8] = 5;
+    var imp =
+        new ij.ImagePlus(
+            "seeds", ResultImages.byteStack(new byte[w * h * 2], w, h, 2)); // a 2-plane stack
+    var first = LoadedSeeds.rois(labels, imp, 0);
+    assertThat(first)
+        .extracting(ij.gui.Roi::getName)
+        .containsExactly("foreground-loaded", "background-loaded");
+    var second = LoadedSeeds.rois(labels, imp, 1);
+    assertThat(second)
+        .extracting(ij.gui.Roi::getName)
+        .containsExactly("class3-loaded", "class5-loaded");
+    assertThat(second.get(0).getFillColor().getRGB())
+        .isEqualTo((LoadedSeeds.ALPHA << 24) | 0x009E73);
+    assertThat(second.get(1).getFillColor().getRGB() & 0xFFFFFF).isEqualTo(0x0072B2);
+    assertThat(second.get(0).getPosition()).isEqualTo(2);
+    assertThat(second.get(0).getBounds()).isEqualTo(new java.awt.Rectangle(7, 7, 1, 1));
+    assertThat(LoadedSeeds.rois(null, imp, 0)).isEmpty();
+  }
+
+  @Test
+  void paintChoiceNamesAndAlt() {
+    assertThat(PaintClasses.label(1)).isEqualTo("Foreground (orange)");
+    assertThat(PaintClasses.label(2)).isEqualTo("Background (sky blue)");
+    assertThat(PaintClasses.label(3)).isEqualTo("Class 3 (bluish green)");
+    assertThat(PaintClasses.label(7)).isEqualTo("Class 7 (reddish purple)");
+    // Alt swaps foreground and background, and paints background over a further class
+    assertThat(PaintClasses.stroke(1, true)).isEqualTo(2);
+    assertThat(PaintClasses.stroke(2, true)).isEqualTo(1);
+    for (int c = 1; c <= PaintClasses.MAX; c++) {
+      assertThat(PaintClasses.stroke(c, false)).isEqualTo(c);
+      if (c >= 3) {
+        assertThat(PaintClasses.stroke(c, true)).isEqualTo(2);
+      }
+    }
+    org.assertj.core.api.Assertions.assertThatThrownBy(() -> PaintClasses.stroke(8, false))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessageContaining("paint class 8");
+    org.assertj.core.api.Assertions.assertThatThrownBy(
+            () -> BrushSettings.defaults().withPaint(PaintClasses.MAX + 1))
+        .isInstanceOf(IllegalArgumentException.class);
+    assertThat(BrushSettings.defaults().withPaint(BrushSettings.ERASER).erasing()).isTrue();
   }
 
   @Test
