@@ -16,13 +16,14 @@ import java.util.concurrent.CancellationException;
  * plane (or one volume) of features, minimised by alpha-expansion ({@link AlphaExpansion}; Boykov,
  * Veksler and Zabih, "Fast approximate energy minimization via graph cuts", IEEE TPAMI
  * 23(11):1222–1239, 2001, doi:10.1109/34.969114), from the background everywhere with the seeds in
- * their classes, for at most {@value #MAX_CYCLES} cycles over the classes: the plain expansion that
- * the pipeline's multi-class cut starts every round with, without its refinement rounds.
+ * their classes, for at most {@value AlphaExpansion#DEFAULT_MAX_CYCLES} cycles over the classes:
+ * the plain expansion that the pipeline's multi-class cut starts every round with, without its
+ * refinement rounds.
  *
  * <p><b>No dynamic re-solve.</b> Every update builds the energy anew and runs the whole expansion:
- * O(n · K_nb) to build plus at most {@code MAX_CYCLES · K} minimum cuts. What is kept between
- * updates is what does not depend on the seeds: the regional costs of the model (O(n · K) to
- * compute once per model) and the contrast-scale estimate. The result is a local minimum within
+ * O(n · K_nb) to build plus at most {@code DEFAULT_MAX_CYCLES · K} minimum cuts. What is kept
+ * between updates is what does not depend on the seeds: the regional costs of the model (O(n · K)
+ * to compute once per model) and the contrast-scale estimate. The result is a local minimum within
  * twice the global one (BVZ 2001, Theorem 6.1).
  *
  * <p><b>Stopping.</b> The calling thread's interrupt is checked after the energy is built and
@@ -32,12 +33,6 @@ import java.util.concurrent.CancellationException;
  * <p>Not thread-safe: one worker thread owns an instance.
  */
 final class LiveClasses {
-  /**
-   * Largest number of expansion cycles over the classes per update: the pipeline's cap (6, in
-   * {@code segment.MultiClassCut}), so that preview and pipeline expand alike.
-   */
-  static final int MAX_CYCLES = 6;
-
   private final Raster features;
   private final Neighborhood neighborhood;
   private float[][] costs; // costs[c - 1][p] = D_p(c) of the model in use
@@ -103,19 +98,10 @@ final class LiveClasses {
     if (Thread.currentThread().isInterrupted()) {
       throw new CancellationException("stopped");
     }
-    AlphaExpansion.Outcome o = AlphaExpansion.run(energy, backgroundStart(seeds), MAX_CYCLES);
+    AlphaExpansion.Outcome o =
+        AlphaExpansion.run(
+            energy, AlphaExpansion.backgroundStart(seeds), AlphaExpansion.DEFAULT_MAX_CYCLES);
     return new Outcome(
         o.labels(), costs.length, o.energy(), o.cycles(), o.moves(), System.nanoTime() - start);
-  }
-
-  /** The background everywhere, seeds their own class: where the pipeline's expansion starts. */
-  static byte[] backgroundStart(SeedLabels seeds) {
-    byte[] start = seeds.labels().clone();
-    for (int i = 0; i < start.length; i++) {
-      if (start[i] == 0) {
-        start[i] = SeedLabels.BACKGROUND;
-      }
-    }
-    return start;
   }
 }

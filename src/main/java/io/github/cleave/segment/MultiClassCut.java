@@ -16,19 +16,13 @@ import io.github.cleave.model.ModelKind;
  * keeping their label, and cut again, for the model's rounds or until the class map no longer
  * changes. A stack cut plane by plane runs each plane as its own energy ({@link PlaneCuts}).
  *
- * <p>Each cut starts from the background ({@link #backgroundStart}) and runs at most {@link
- * #MAX_CYCLES} cycles of expansion moves, one max-flow problem per class and cycle. Expansion stops
- * at a local minimum within twice the global one for the Potts model (BVZ 2001, Theorem 6.1); the
- * two-class case is left to the exact cut of {@link Segmenter}, which it would reproduce.
+ * <p>Each cut starts from the background ({@link AlphaExpansion#backgroundStart}) and runs at most
+ * {@link AlphaExpansion#DEFAULT_MAX_CYCLES} cycles of expansion moves, one max-flow problem per
+ * class and cycle. Expansion stops at a local minimum within twice the global one for the Potts
+ * model (BVZ 2001, Theorem 6.1); the two-class case is left to the exact cut of {@link Segmenter},
+ * which it reproduces exactly.
  */
 final class MultiClassCut {
-  /**
-   * Largest number of cycles over the classes per cut. Expansion usually settles in two or three
-   * (BVZ 2001 report that most of the decrease comes in the first cycle); common practice, no
-   * source for the exact cap.
-   */
-  static final int MAX_CYCLES = 6;
-
   private MultiClassCut() {}
 
   /**
@@ -80,24 +74,11 @@ final class MultiClassCut {
     long start = System.nanoTime();
     PottsEnergy energy = PottsEnergy.build(features, costs, seeds, parameters);
     double setupMs = Segmenter.millisSince(start);
-    AlphaExpansion.Outcome outcome = AlphaExpansion.run(energy, backgroundStart(seeds), MAX_CYCLES);
+    AlphaExpansion.Outcome outcome =
+        AlphaExpansion.run(
+            energy, AlphaExpansion.backgroundStart(seeds), AlphaExpansion.DEFAULT_MAX_CYCLES);
     return new Segmenter.CutOutcome(
         outcome.labels(), outcome.energy(), setupMs + outcome.buildMs(), outcome.solveMs());
-  }
-
-  /**
-   * The start of every expansion: the background everywhere, seeds their own class. With two
-   * classes the first move (class 1) is then the two-class minimum cut itself, with its choice
-   * among equal cuts (the smallest foreground), and no later move can lower its energy.
-   */
-  static byte[] backgroundStart(SeedLabels seeds) {
-    byte[] start = seeds.labels().clone();
-    for (int i = 0; i < start.length; i++) {
-      if (start[i] == 0) {
-        start[i] = SeedLabels.BACKGROUND;
-      }
-    }
-    return start;
   }
 
   /**

@@ -62,10 +62,12 @@ class LiveClassesTest {
             new EnergyParameters(lambda, ContrastScale.estimate(image, nb), nb, image.voxelSize());
         PottsEnergy energy = PottsEnergy.build(image, costs, now, p);
         AlphaExpansion.Outcome direct =
-            AlphaExpansion.run(energy, LiveClasses.backgroundStart(now), LiveClasses.MAX_CYCLES);
+            AlphaExpansion.run(
+                energy, AlphaExpansion.backgroundStart(now), AlphaExpansion.DEFAULT_MAX_CYCLES);
         assertThat(o.classes()).as("seed %d step %d", seed, step).isEqualTo(direct.labels());
         assertThat(o.energy()).isEqualTo(direct.energy()).isEqualTo(energy.energy(o.classes()));
-        assertThat(o.energy()).isLessThanOrEqualTo(energy.energy(LiveClasses.backgroundStart(now)));
+        assertThat(o.energy())
+            .isLessThanOrEqualTo(energy.energy(AlphaExpansion.backgroundStart(now)));
         assertThat(o.classCount()).isEqualTo(k);
         for (int i = 0; i < labels.length; i++) {
           if (labels[i] != 0) {
