@@ -12,6 +12,22 @@ final class Summary {
     for (String w : result.warnings()) {
       err.println("cleave: note: " + name + ": " + w);
     }
+    if (result.isMultiClass()) {
+      out.println(
+          String.format(
+              Locale.ROOT,
+              "%s: %d object(s) in %d classes, %d voxel(s) in objects, energy %.3f nats (alpha-expansion),"
+                  + " %.0f ms",
+              name,
+              result.objects().count(),
+              result.classes().classCount(),
+              result.foregroundCount(),
+              result.energy(),
+              result.timings().totalMs()));
+      out.flush();
+      err.flush();
+      return;
+    }
     out.println(
         String.format(
             Locale.ROOT,

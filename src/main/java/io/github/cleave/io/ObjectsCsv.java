@@ -122,18 +122,32 @@ public final class ObjectsCsv {
   }
 
   /**
-   * The rows of one time point, each led by {@code frame + 1}: objects in their order in {@code
+   * The leading columns of a time-lapse table: {@code frame} and, when the frame interval is known
+   * (not NaN), {@code time_U} in the time unit U.
+   */
+  public static String frameHeader(double frameInterval, String timeUnit) {
+    return Double.isNaN(frameInterval) ? "frame," : "frame,time_" + asciiUnit(timeUnit) + ",";
+  }
+
+  /**
+   * The rows of one time point, each led by {@code frame + 1} and, when {@code frameInterval} is
+   * not NaN, the time {@code frame · frameInterval}: objects in their order in {@code
    * measurements}, with a class column when {@code classOf} (tracked number to class) is not null.
    */
   public static void frameRows(
       StringBuilder out,
       int frame,
+      double frameInterval,
       List<ObjectMeasurement> measurements,
       boolean stack,
       java.util.function.IntUnaryOperator classOf) {
+    String lead =
+        Double.isNaN(frameInterval)
+            ? (frame + 1) + ","
+            : (frame + 1) + "," + number(frame * frameInterval) + ",";
     for (ObjectMeasurement m : measurements) {
       int c = classOf == null ? 0 : classOf.applyAsInt(m.label());
-      out.append(frame + 1).append(',').append(row(m, stack, null, c)).append('\n');
+      out.append(lead).append(row(m, stack, null, c)).append('\n');
     }
   }
 

@@ -24,11 +24,11 @@ import java.util.List;
  * holding every time point: {@code NAME.mask.tif}, {@code NAME.labels.tif} (tracked numbers: a cell
  * keeps its number from frame to frame) and, for three or more classes, {@code NAME.classes.tif},
  * as hyperstacks with the time axis and the frame interval ({@link TimeLapseOutputs}); {@code
- * NAME.objects.csv} with a leading {@code frame} column; {@code NAME.rois.zip} with one ROI per
- * object, plane and time point ({@link RoiExport#roisOfFrame}); {@code NAME.overlay.png}, the
- * seeded (or first) time point; and, last, {@code NAME.record.json} with a {@code timeLapse}
- * section (time points, how the time axis was chosen, objects per time point). Every file is
- * written atomically; none may be an input file.
+ * NAME.objects.csv} with a leading {@code frame} column (and {@code time_s} or the like when the
+ * frame interval is known); {@code NAME.rois.zip} with one ROI per object, plane and time point
+ * ({@link RoiExport#roisOfFrame}); {@code NAME.overlay.png}, the seeded (or first) time point; and,
+ * last, {@code NAME.record.json} with a {@code timeLapse} section (time points, how the time axis
+ * was chosen, objects per time point). Every file is written atomically; none may be an input file.
  */
 public final class TimeLapseFiles {
   private TimeLapseFiles() {}
@@ -68,7 +68,8 @@ public final class TimeLapseFiles {
     int largest = 0;
     Segmentation first = result.frame(result.seedFrame()).segmentation();
     boolean stack = geometry.depth() > 1;
-    StringBuilder table = new StringBuilder("frame,");
+    StringBuilder table =
+        new StringBuilder(ObjectsCsv.frameHeader(series.frameInterval(), series.timeUnit()));
     table
         .append(
             ObjectsCsv.header(
@@ -93,7 +94,12 @@ public final class TimeLapseFiles {
       }
       roiList.addAll(RoiExport.roisOfFrame(s.objects(), objectClasses, f.numberOf(), f.index()));
       ObjectsCsv.frameRows(
-          table, f.index(), f.measurements(), stack, c == null ? null : classOfTracked(f, c));
+          table,
+          f.index(),
+          series.frameInterval(),
+          f.measurements(),
+          stack,
+          c == null ? null : classOfTracked(f, c));
     }
     TimeLapseOutputs.writeMasks(mask, masks, geometry);
     TimeLapseOutputs.writeLabels(labels, tracked, largest, geometry);

@@ -247,7 +247,9 @@ class ClassesAndTimeCommandsTest {
       }
     }
     List<String> rows = Files.readAllLines(out.resolve(name + ".objects.csv"));
-    assertThat(rows.get(0)).startsWith("frame,object,pixels,");
+    // the frame interval of 30 s gives a time column
+    assertThat(rows.get(0)).startsWith("frame,time_s,object,pixels,");
+    assertThat(rows.get(rows.size() - 1)).startsWith(FRAMES + "," + (FRAMES - 1) * 30 + ".000000,");
     assertThat(rows.stream().skip(1).map(row -> row.split(",")[0]).distinct()).hasSize(FRAMES);
     var rois = RoiExport.readZip(Files.readAllBytes(out.resolve(name + ".rois.zip")));
     assertThat(rois).hasSize(rows.size() - 1);
