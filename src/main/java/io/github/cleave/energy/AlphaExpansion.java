@@ -15,8 +15,10 @@ import java.util.concurrent.CancellationException;
  *
  * Classes α = 1, 2, ..., K are visited in turn, cycle after cycle. Each move lets any set of voxels
  * switch to α at once and finds the best such set by one minimum cut ({@code ExpansionMove}); the
- * move is accepted only if it lowers the energy strictly. The run stops when K moves in a row (one
- * per class) were all refused, or after {@code maxCycles} cycles.
+ * move is accepted only if it lowers the energy strictly. The run stops when no move can lower the
+ * energy any more: K moves in a row (one per class) refused, or K − 1 refused after an accepted one
+ * (repeating the accepted class could not help: its move already took the best of every labelling a
+ * repeat could reach), or after {@code maxCycles} cycles.
  *
  * <h2>Guarantees</h2>
  *
@@ -117,6 +119,8 @@ public final class AlphaExpansion {
     int moves = 0;
     int cycles = 0;
     int refusedInARow = 0;
+    boolean accepted = false;
+    int[][] terminals = new int[2][labels.length]; // the moves' terminal capacities, reused
     double buildMs = 0;
     double solveMs = 0;
     run:
@@ -126,7 +130,8 @@ public final class AlphaExpansion {
         if (Thread.currentThread().isInterrupted()) {
           throw new CancellationException("alpha-expansion interrupted");
         }
-        ExpansionMove.Result move = ExpansionMove.solve(energy, labels, alpha);
+        ExpansionMove.Result move =
+            ExpansionMove.solve(energy, labels, alpha, terminals[0], terminals[1]);
         if (move.status() == SolveStatus.INTERRUPTED) {
           throw new CancellationException("alpha-expansion interrupted");
         }
@@ -137,6 +142,7 @@ public final class AlphaExpansion {
           labels = move.labels();
           current = move.energy();
           refusedInARow = 0;
+          accepted = true;
         } else {
           refusedInARow++;
         }
@@ -144,7 +150,10 @@ public final class AlphaExpansion {
           history = Arrays.copyOf(history, 2 * history.length);
         }
         history[moves++] = current;
-        if (refusedInARow >= classes) {
+        // After an accepted move of class a, a repeat of a cannot help: every labelling it
+        // reaches, the accepted move could reach too, and it took the best of them. So K - 1
+        // refusals after an acceptance (K before any) mean no move lowers the energy.
+        if (refusedInARow >= (accepted ? classes - 1 : classes)) {
           break run;
         }
       }

@@ -71,11 +71,19 @@ final class ExpansionMove {
    * hold the seeds; not modified).
    */
   static Result solve(PottsEnergy energy, byte[] labels, int alpha) {
+    return solve(energy, labels, alpha, new int[labels.length], new int[labels.length]);
+  }
+
+  /**
+   * As {@link #solve(PottsEnergy, byte[], int)}, with the terminal capacities written into {@code
+   * source} and {@code sink} (n entries each, overwritten), so that runs of moves allocate them
+   * once.
+   */
+  static Result solve(PottsEnergy energy, byte[] labels, int alpha, int[] source, int[] sink) {
     long start = System.nanoTime();
     PottsPairs g = energy.pairs();
     int width = g.width;
     int directions = g.directions;
-    int n = labels.length;
     int[] x0 = new int[directions];
     int[] x1 = new int[directions];
     for (int k = 0; k < directions; k++) {
@@ -92,8 +100,6 @@ final class ExpansionMove {
     byte a = (byte) alpha;
 
     GridMaxFlow solver = new GridMaxFlow(width, g.height, g.depth, g.neighborhood);
-    int[] source = new int[n];
-    int[] sink = new int[n];
     int[] row = new int[width * directions];
     long constant = 0;
     for (int z = 0; z < g.depth; z++) {
@@ -109,6 +115,8 @@ final class ExpansionMove {
               row[base + k] = 0;
             }
             constant += toAlpha[p]; // 0 at seeds
+            source[p] = 0;
+            sink[p] = 0;
             continue;
           }
           long src = regional[(lp & 0xff) - 1][p];

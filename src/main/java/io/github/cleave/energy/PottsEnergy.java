@@ -51,7 +51,24 @@ public final class PottsEnergy {
    */
   public static PottsEnergy build(
       Raster features, float[][] costs, SeedLabels seeds, EnergyParameters parameters) {
-    int n = features.size();
+    byte[] fixed = checked(features.size(), costs, seeds);
+    CutProblem.checkFits(features, parameters.neighborhood());
+    return new PottsEnergy(PottsPairs.of(features, parameters), regional(costs, fixed), fixed);
+  }
+
+  /**
+   * The energy of the same image and boundary term with other regional costs and seeds: the
+   * boundary weights are kept, not computed again (they depend on neither).
+   *
+   * @throws IllegalArgumentException as {@link #build} for the costs and seeds
+   */
+  public PottsEnergy withCostsAndSeeds(float[][] costs, SeedLabels seeds) {
+    byte[] fixed = checked(this.seeds.length, costs, seeds);
+    return new PottsEnergy(pairs, regional(costs, fixed), fixed);
+  }
+
+  /** Checks costs and seeds for n voxels; returns a copy of the seed labels. */
+  private static byte[] checked(int n, float[][] costs, SeedLabels seeds) {
     if (costs.length < 2 || costs.length > SeedLabels.MAX_CLASS) {
       throw new IllegalArgumentException(
           String.format(
@@ -89,7 +106,12 @@ public final class PottsEnergy {
                 costs.length));
       }
     }
-    CutProblem.checkFits(features, parameters.neighborhood());
+    return fixed;
+  }
+
+  /** The quantised regional costs, 0 at seeds. */
+  private static int[][] regional(float[][] costs, byte[] fixed) {
+    int n = fixed.length;
     int[][] regional = new int[costs.length][n];
     for (int c = 0; c < costs.length; c++) {
       float[] from = costs[c];
@@ -98,7 +120,7 @@ public final class PottsEnergy {
         to[p] = fixed[p] == 0 ? CapacityScale.toCapacity(from[p]) : 0;
       }
     }
-    return new PottsEnergy(PottsPairs.of(features, parameters), regional, fixed);
+    return regional;
   }
 
   /** Number of classes K (≥ 2). */

@@ -51,6 +51,7 @@ final class MultiClassCut {
       boolean perPlane,
       EnergyParameters parameters) {
     int classes = initial.classCount();
+    PottsEnergy[] kept = new PottsEnergy[1]; // the volume's energy: boundary weights kept
     return RefinedCut.rounds(
         features,
         initial,
@@ -60,7 +61,13 @@ final class MultiClassCut {
             perPlane && features.depth() > 1
                 ? PlaneCuts.cutEachPlane(
                     features, costs, seeds, (f, c, s) -> expansion(f, c, s, parameters))
-                : expansion(features, costs, seeds, parameters),
+                : expansion(
+                    seeds,
+                    () ->
+                        kept[0] =
+                            kept[0] == null
+                                ? PottsEnergy.build(features, costs, seeds, parameters)
+                                : kept[0].withCostsAndSeeds(costs, seeds)),
         classMap -> {
           SeedLabels fromCut = labelsFromClasses(classMap, seeds, classes, perPlane);
           // null when a class lies all in boundary bands: nothing to learn it from
@@ -71,8 +78,13 @@ final class MultiClassCut {
   /** One expansion run on one graph; the "mask" of the outcome holds class labels 1..K. */
   private static Segmenter.CutOutcome expansion(
       Raster features, float[][] costs, SeedLabels seeds, EnergyParameters parameters) {
+    return expansion(seeds, () -> PottsEnergy.build(features, costs, seeds, parameters));
+  }
+
+  private static Segmenter.CutOutcome expansion(
+      SeedLabels seeds, java.util.function.Supplier<PottsEnergy> energyOf) {
     long start = System.nanoTime();
-    PottsEnergy energy = PottsEnergy.build(features, costs, seeds, parameters);
+    PottsEnergy energy = energyOf.get();
     double setupMs = Segmenter.millisSince(start);
     AlphaExpansion.Outcome outcome =
         AlphaExpansion.run(
