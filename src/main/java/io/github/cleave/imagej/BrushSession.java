@@ -106,10 +106,7 @@ final class BrushSession implements ImageListener {
     this.strokes = new SeedStrokes(r.width(), r.height(), r.depth());
     this.original = imp.getOverlay() == null ? null : imp.getOverlay().duplicate();
     this.overlay = new BrushOverlay(imp, original, time);
-    if (time.isTimeLapse()) { // said once the panel is there (this runs on the event thread)
-      time.notes().forEach(n -> ij.IJ.log("Cleave: " + SeedBrushCommand.TITLE + ": " + n));
-      EventQueue.invokeLater(() -> status.accept(time.started()));
-    }
+    time.announce(status);
     this.worker = Executors.newSingleThreadExecutor(daemon("Cleave live cut"));
     this.timer = Executors.newSingleThreadScheduledExecutor(daemon("Cleave pause timer"));
     ImagePlus.addImageListener(this);

@@ -1,5 +1,6 @@
 package io.github.cleave.imagej;
 
+import ij.IJ;
 import ij.ImagePlus;
 import ij.gui.Roi;
 import io.github.cleave.io.Hyperstacks;
@@ -7,8 +8,10 @@ import io.github.cleave.io.ImageFiles;
 import io.github.cleave.io.LoadedImage;
 import io.github.cleave.io.OpenedSeries;
 import io.github.cleave.io.TimeAxis;
+import java.awt.EventQueue;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.Consumer;
 
 /**
  * The time point a brush session works on, and the map between the image's display position and the
@@ -194,6 +197,17 @@ final class BrushTime {
   /** A status line of the session's time point: {@code line} there, {@link #away()} elsewhere. */
   String statusLine(String line) {
     return showsSessionTime() ? line + " · " + where() : away();
+  }
+
+  /**
+   * On a time-lapse: logs how time was decided and, once the caller's event has finished (the panel
+   * is there then), puts {@link #started()} in the status line. Nothing for one time point.
+   */
+  void announce(Consumer<String> status) {
+    if (isTimeLapse()) {
+      notes.forEach(n -> IJ.log("Cleave: " + SeedBrushCommand.TITLE + ": " + n));
+      EventQueue.invokeLater(() -> status.accept(started()));
+    }
   }
 
   /** The status line when the session starts on a time-lapse. */
