@@ -36,6 +36,14 @@ import java.util.zip.ZipOutputStream;
  * <p>With strokes of three or more classes, the mask action also shows the class map (8-bit, seed
  * palette), the measurements have a {@code class} column and the ROIs are grouped and coloured by
  * class ({@link ResultImages}).
+ *
+ * <p>On a time-lapse ({@link BrushTime}) the results cover every time point: the strokes are the
+ * seeds of the session's time point, and {@link TimeLapseRun#segment} (the path of {@code Segment
+ * Current Image...} on a time-lapse) cuts that time point, then the others from their neighbours'
+ * objects, with progress per time point; Esc stops it and nothing is shown. The results are {@link
+ * TimeLapseImages} (hyperstacks over time, tracked numbers, a {@code frame} column, ROIs at their
+ * time point). Save model learns from the session's time point; the ROI zip carries it as T
+ * position.
  */
 final class BrushActions {
   private final BrushSession session;
@@ -43,6 +51,7 @@ final class BrushActions {
   private Segmentation last;
   private SeedLabels lastSeeds;
   private SegmentationSettings lastSettings;
+  private TimeLapseImages lastTimeLapse;
 
   BrushActions(BrushSession session, Consumer<String> status) {
     this.session = session;
@@ -61,6 +70,25 @@ final class BrushActions {
   void present(Output output) {
     SeedLabels seeds = session.strokes.labels();
     SegmentationSettings settings = session.settings().segmentation();
+    if (session.time.isTimeLapse()) {
+      background(
+          () -> {
+            TimeLapseImages made = timeLapse(seeds, settings);
+            switch (output) {
+              case MASK -> {
+                made.mask().show();
+                if (made.classes() != null) {
+                  made.classes().show();
+                }
+              }
+              case LABELS -> made.labels().show();
+              case MEASURE -> made.table().show(ResultImages.TABLE);
+              case ROIS -> made.rois().forEach(RoiManager.getRoiManager()::addRoi);
+            }
+            status.accept(made.summary());
+          });
+      return;
+    }
     background(
         () -> {
           try (WorkProgress progress = WorkProgress.start()) {
@@ -115,6 +143,43 @@ final class BrushActions {
         List.of("seeds: " + session.strokes.strokes().size() + " stroke(s) painted"));
   }
 
+  /**
+   * The results of every time point of a time-lapse from the present seeds (the session's time
+   * point) and settings, segmenting again only if they changed (see the class comment).
+   *
+   * @throws BadInputException without a foreground and a background seed
+   * @throws CancellationException if Esc was pressed
+   */
+  synchronized TimeLapseImages timeLapse(SeedLabels seeds, SegmentationSettings settings) {
+    if (lastTimeLapse == null
+        || !settings.equals(lastSettings)
+        || !java.util.Arrays.equals(seeds.labels(), lastSeeds.labels())) {
+      if (!LiveCut.hasBothClasses(seeds)) {
+        throw new BadInputException("paint at least one foreground and one background stroke");
+      }
+      BrushTime time = session.time;
+      status.accept("segmenting every time point with the whole pipeline (Esc stops)");
+      TimeSettings axis = TimeSettings.defaults(); // as the session read it; neighbours' seeds on
+      TimeSeeds from =
+          new TimeSeeds(
+              seeds,
+              time.time(),
+              session.strokes.strokes().size() + " brush stroke(s) on " + time.where());
+      lastTimeLapse =
+          TimeLapseRun.segment(
+              session.imp,
+              TimeLapseRun.series(session.imp, axis),
+              from,
+              settings,
+              axis,
+              SeedBrushCommand.TITLE,
+              List.of());
+      lastSeeds = seeds;
+      lastSettings = settings;
+    }
+    return lastTimeLapse;
+  }
+
   /** Saves the strokes as a ROI zip that {@code Segment Current Image...} and the CLI read. */
   void saveRoiZip() {
     List<SeedStrokes.Stroke> list = session.strokes.strokes();
@@ -127,18 +192,33 @@ final class BrushActions {
       return;
     }
     Path file = Path.of(sd.getDirectory(), sd.getFileName());
-    boolean stack = session.imp.getNSlices() > 1;
+    try {
+      writeRoiZip(file);
+      status.accept("seeds saved to " + file);
+    } catch (IOException e) {
+      IJ.error("Cleave", "cannot write " + file + ": " + e.getMessage());
+    }
+  }
+
+  /**
+   * Writes the strokes as a seed ROI zip: each on its z plane (in a stack) and, on a time-lapse, on
+   * the session's time point (T position, {@link BrushTime#positionForFile}).
+   */
+  void writeRoiZip(Path file) throws IOException {
+    List<SeedStrokes.Stroke> list = session.strokes.strokes();
+    BrushTime time = session.time;
+    boolean stack = time.depth() > 1;
     try (OutputStream out = Files.newOutputStream(file);
         ZipOutputStream zip = new ZipOutputStream(out)) {
       for (int i = 0; i < list.size(); i++) {
         Roi roi = list.get(i).toRoi(i + 1, stack);
+        if (time.isTimeLapse()) {
+          time.positionForFile(roi, list.get(i).plane());
+        }
         zip.putNextEntry(new ZipEntry(roi.getName() + ".roi"));
         zip.write(RoiEncoder.saveAsByteArray(roi));
         zip.closeEntry();
       }
-      status.accept("seeds saved to " + file);
-    } catch (IOException e) {
-      IJ.error("Cleave", "cannot write " + file + ": " + e.getMessage());
     }
   }
 
@@ -153,7 +233,17 @@ final class BrushActions {
     ImagePlus imp = new ImagePlus(sd.getFileName(), stack);
     String path = Path.of(sd.getDirectory(), sd.getFileName()).toString();
     if (new FileSaver(imp).saveAsTiff(path)) {
-      status.accept("seed image saved to " + path);
+      BrushTime time = session.time;
+      status.accept(
+          "seed image saved to "
+              + path
+              + (time.isTimeLapse()
+                  ? " (seeds of time point "
+                      + (time.time() + 1)
+                      + ": give seed_frame="
+                      + (time.time() + 1)
+                      + ")"
+                  : ""));
     }
   }
 
@@ -169,7 +259,8 @@ final class BrushActions {
     Path file = Path.of(od.getDirectory(), od.getFileName());
     ImagePlus imp = session.imp;
     try {
-      session.strokes.load(SeedFiles.read(file, imp.getWidth(), imp.getHeight(), imp.getNSlices()));
+      session.strokes.load(
+          SeedFiles.read(file, imp.getWidth(), imp.getHeight(), session.time.depth()));
       session.strokesChanged();
       status.accept("seeds loaded from " + file);
     } catch (BadInputException e) {

@@ -10,7 +10,8 @@ import java.util.List;
  * ({@link LoadedSeeds}), the strokes in the order painted, the stroke being drawn, and the live
  * preview's contours ({@link CutContour}). The contours and the loaded seeds of a plane are traced
  * once and kept until the preview, the loaded seeds or the plane change, so a stroke being drawn
- * redraws cheaply. Event-thread only.
+ * redraws cheaply. On a time-lapse every ROI of the session is put on its plane of the session's
+ * time point ({@link BrushTime#position}), so ImageJ shows it there only. Event-thread only.
  */
 final class BrushOverlay {
   /**
@@ -29,6 +30,7 @@ final class BrushOverlay {
 
   private final ImagePlus imp;
   private final Overlay original; // the image's own overlay, or null
+  private final BrushTime time;
   private Preview traced; // the preview whose contours are kept
   private int tracedPlane = -2;
   private List<Roi> contours = List.of();
@@ -36,9 +38,10 @@ final class BrushOverlay {
   private int seedsPlane = -2;
   private List<Roi> seedAreas = List.of();
 
-  BrushOverlay(ImagePlus imp, Overlay original) {
+  BrushOverlay(ImagePlus imp, Overlay original, BrushTime time) {
     this.imp = imp;
     this.original = original;
+    this.time = time;
   }
 
   /**
@@ -58,7 +61,7 @@ final class BrushOverlay {
       }
     }
     if (base != seedsTraced || z != seedsPlane) {
-      seedAreas = LoadedSeeds.rois(base, imp, z);
+      seedAreas = onTime(LoadedSeeds.rois(base, imp, z), z);
       seedsTraced = base;
       seedsPlane = z;
     }
@@ -66,18 +69,31 @@ final class BrushOverlay {
     boolean stack = imp.getStackSize() > 1;
     boolean hyper = imp.isHyperStack();
     for (int i = 0; i < strokes.size(); i++) {
-      ov.add(strokes.get(i).toRoi(i + 1, stack, hyper));
+      SeedStrokes.Stroke s = strokes.get(i);
+      Roi r = s.toRoi(i + 1, stack, hyper);
+      if (time.isTimeLapse()) {
+        time.position(r, s.plane());
+      }
+      ov.add(r);
     }
     if (drawing != null) {
       ov.add(drawing);
     }
     if (preview != traced || z != tracedPlane) { // strokes being drawn leave the cut as it is
-      contours = contours(preview, z);
+      contours = onTime(contours(preview, z), z);
       traced = preview;
       tracedPlane = z;
     }
     contours.forEach(ov::add);
     return ov;
+  }
+
+  /** The ROIs of plane {@code z}, put on the session's time point of a time-lapse. */
+  private List<Roi> onTime(List<Roi> rois, int z) {
+    if (time.isTimeLapse()) {
+      rois.forEach(r -> time.position(r, z));
+    }
+    return rois;
   }
 
   private List<Roi> contours(Preview p, int z) {

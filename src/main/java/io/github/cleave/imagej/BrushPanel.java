@@ -116,7 +116,7 @@ final class BrushPanel extends Frame {
     }
     likelihood.addItemListener(e -> cutSettingsChanged());
     row(g, "Likelihood", likelihood);
-    volume.setEnabled(session.imp.getNSlices() > 1);
+    volume.setEnabled(session.time.depth() > 1);
     volume.addItemListener(e -> cutSettingsChanged());
     row(g, "Stacks", volume);
 

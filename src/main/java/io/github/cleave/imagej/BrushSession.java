@@ -8,7 +8,6 @@ import io.github.cleave.flow.Neighborhood;
 import io.github.cleave.image.PixelKind;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
-import io.github.cleave.io.ImageFiles;
 import io.github.cleave.io.LoadedImage;
 import io.github.cleave.model.LikelihoodModel;
 import io.github.cleave.model.ModelKind;
@@ -48,6 +47,11 @@ import java.util.function.Consumer;
  * throughout: a newer request or Esc stops it between and inside moves) and drawn as one contour
  * per class ({@link CutContour#ofClasses}); with a class missing, the status line names it. A
  * change of the class count re-learns at once, so back to two classes the two-class cut returns.
+ *
+ * <p><b>Time.</b> On an image with several time points the session works on the one shown when it
+ * starts ({@link BrushTime}): strokes, preview and contours are that time point's and are drawn
+ * only there. Shown another time point, the strokes stay where they are, the brush does not paint
+ * and the status line says where the strokes are.
  */
 final class BrushSession implements ImageListener {
   /** Pause after a stroke before the likelihoods are learned again, in milliseconds. */
@@ -60,6 +64,7 @@ final class BrushSession implements ImageListener {
   static final String PREVIEW = "preview: plain cut; Create mask runs the full pipeline";
 
   final ImagePlus imp;
+  final BrushTime time;
   final LoadedImage image;
   final SeedStrokes strokes;
   private final Raster features; // driving channels, every plane
@@ -86,19 +91,22 @@ final class BrushSession implements ImageListener {
   private final BrushOverlay overlay;
   private volatile BrushOverlay.Preview preview; // the last preview shown, or null
   private int shownPlane = -1;
+  private int shownTime = -1;
   private Roi drawing; // the stroke being drawn
   private boolean previewExplained; // the status line said once what the contour is
 
   BrushSession(ImagePlus imp, Consumer<String> status) {
     this.imp = imp;
     this.status = status;
-    this.image = ImageFiles.fromImagePlus(imp, imp.getTitle());
+    this.time = BrushTime.of(imp);
+    this.image = time.image();
     Raster r = image.raster();
     this.features =
         r.selectChannels(r.kind() == PixelKind.RGB ? new int[] {0, 1, 2} : new int[] {0});
     this.strokes = new SeedStrokes(r.width(), r.height(), r.depth());
     this.original = imp.getOverlay() == null ? null : imp.getOverlay().duplicate();
-    this.overlay = new BrushOverlay(imp, original);
+    this.overlay = new BrushOverlay(imp, original, time);
+    time.announce(status);
     this.worker = Executors.newSingleThreadExecutor(daemon("Cleave live cut"));
     this.timer = Executors.newSingleThreadScheduledExecutor(daemon("Cleave pause timer"));
     ImagePlus.addImageListener(this);
@@ -146,9 +154,20 @@ final class BrushSession implements ImageListener {
     }
   }
 
-  /** The 0-based plane shown. */
+  /** The 0-based plane shown (within a time point). */
   int plane() {
-    return imp.getNSlices() > 1 ? imp.getZ() - 1 : 0;
+    return time.shownPlane();
+  }
+
+  /**
+   * Whether strokes may be painted now: false while another time point than the session's shows.
+   */
+  boolean canPaint() {
+    if (time.showsSessionTime()) {
+      return true;
+    }
+    status.accept(time.away());
+    return false;
   }
 
   /** Shows a stroke while it is drawn (null to remove it). */
@@ -325,7 +344,7 @@ final class BrushSession implements ImageListener {
             }
           }
           redraw();
-          status.accept(shown);
+          status.accept(time.isTimeLapse() ? time.statusLine(shown) : shown);
         });
   }
 
@@ -334,6 +353,7 @@ final class BrushSession implements ImageListener {
     int z = plane();
     imp.setOverlay(overlay.build(strokes.strokes(), strokes.baseLayer(), drawing, preview, z));
     shownPlane = z;
+    shownTime = time.shownTime();
   }
 
   /** The foreground mask of the last two-class preview, or null: one plane or the whole volume. */
@@ -366,12 +386,18 @@ final class BrushSession implements ImageListener {
 
   @Override
   public void imageUpdated(ImagePlus other) {
-    if (other == imp && plane() != shownPlane) {
+    if (other == imp && (plane() != shownPlane || time.shownTime() != shownTime)) {
       EventQueue.invokeLater(
           () -> {
+            boolean planeMoved = plane() != shownPlane;
+            boolean timeMoved = time.shownTime() != shownTime;
             redraw();
-            if (!settings.volume() || imp.getNSlices() == 1) {
+            if (!time.showsSessionTime()) {
+              status.accept(time.away()); // the strokes stay on their time point
+            } else if (planeMoved && (!settings.volume() || time.depth() == 1)) {
               request(false);
+            } else if (timeMoved) {
+              status.accept("back on " + time.where() + ": paint on");
             }
           });
     }

@@ -22,7 +22,8 @@ import java.util.Map;
  * paints the other class of foreground and background, and background when the panel's class is a
  * further class (3 and up: {@link PaintClasses#stroke}); in eraser mode it removes the strokes it
  * touches. Releasing the mouse hands the stroke to the session, which redraws and recuts. On an
- * image without a session the tool does nothing.
+ * image without a session the tool does nothing; on a time-lapse it paints only on the session's
+ * time point ({@link BrushSession#canPaint}).
  *
  * <p>ImageJ keeps one tool per toolbar slot, so there is one instance ({@link #get()}), which knows
  * every image being painted. While any image is painted, ImageJ's Edit &gt; Undo (Ctrl+Z) on it
@@ -87,6 +88,11 @@ final class SeedBrushTool extends PlugInTool {
   public void mousePressed(ImagePlus imp, MouseEvent e) {
     BrushSession s = sessions.get(imp);
     if (s == null) {
+      return;
+    }
+    if (!s.canPaint()) { // another time point than the strokes' is shown: the status line says so
+      count = 0;
+      e.consume();
       return;
     }
     BrushSettings b = s.settings();
