@@ -24,6 +24,7 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.CancellationException;
 import java.util.function.BooleanSupplier;
@@ -60,7 +61,8 @@ final class FileJob {
       Optional<Path> seedFile = SeedFiles.find(f.path(), f.seedsDir(c.settings().seeds()));
       if (!c.settings().overwrite()) {
         Optional<ResumeCheck.Done> done =
-            ResumeCheck.completed(outDir, name, f.path(), seedFile.orElse(null), c.modelSha256());
+            ResumeCheck.completed(
+                outDir, name, f.path(), seedFile.orElse(null), c.modelSha256(), c.settings());
         if (done.isPresent()) {
           BufferedImage thumb =
               wantThumbnail ? Thumbnails.read(outDir.resolve(name + ".overlay.png")) : null;
@@ -70,10 +72,21 @@ final class FileJob {
               thumb);
         }
       }
-      long reserved =
-          c.budget().reserve(ImageFiles.estimateHeapBytes(f.path()), f.path().toString());
+      // a file that may hold time is opened (its header, one plane) to know how it will be cut
+      OpenedSeries series =
+          Hyperstacks.mayHoldTime(f.path())
+              ? Hyperstacks.openSeries(f.path(), c.settings().timeAxis())
+              : null;
+      boolean timeLapse = series != null && series.frameCount() > 1;
+      long need =
+          timeLapse
+              ? Hyperstacks.estimateHeapBytes(series)
+              : ImageFiles.estimateHeapBytes(f.path());
+      long reserved = c.budget().reserve(need, f.path().toString());
       try {
-        return segment(c, f, outDir, seedFile.orElse(null), wantThumbnail);
+        return timeLapse
+            ? segmentTimeLapse(c, f, outDir, seedFile.orElse(null), series, wantThumbnail)
+            : segment(c, f, outDir, seedFile.orElse(null), wantThumbnail);
       } finally {
         c.budget().release(reserved);
       }
@@ -104,12 +117,6 @@ final class FileJob {
   private static Done segment(
       Context c, InputScan.InputFile f, Path outDir, Path seedFile, boolean wantThumbnail)
       throws IOException {
-    if (Hyperstacks.mayHoldTime(f.path())) {
-      OpenedSeries series = Hyperstacks.openSeries(f.path(), c.settings().timeAxis());
-      if (series.frameCount() > 1) {
-        return segmentTimeLapse(c, f, outDir, seedFile, series, wantThumbnail);
-      }
-    }
     LoadedImage image = ImageFiles.read(f.path());
     Raster r = image.raster();
     SeedLabels seeds =
@@ -152,6 +159,15 @@ final class FileJob {
             : SeedFiles.read(seedFile, series.width(), series.height(), series.depth());
     checkCancelled(c);
     BatchSettings s = c.settings();
+    if (s.seedFrame() >= series.frameCount()) {
+      throw new BadInputException(
+          String.format(
+              Locale.ROOT,
+              "seed time point %d, but this file has time points 1 to %d: give a time point it has"
+                  + " (--seed-time-point, or seed_frame in ImageJ), or segment this file on its own",
+              s.seedFrame() + 1,
+              series.frameCount()));
+    }
     TimeLapseResult result =
         TimeLapseSegmenter.apply(
             c.model(),
@@ -162,7 +178,16 @@ final class FileJob {
     SegmentationFiles.Inputs inputs = new SegmentationFiles.Inputs(f.path(), seedFile, s.model());
     Files.createDirectories(outDir);
     BufferedImage picture =
-        TimeLapseFiles.write(outDir, f.baseName(), series, seeds, result, inputs, "batch");
+        TimeLapseFiles.write(
+            outDir,
+            f.baseName(),
+            series,
+            seeds,
+            result,
+            inputs,
+            "batch",
+            s.timeAxis(),
+            s.seedsFromNeighbour());
     int objects = 0;
     double ms = 0;
     for (TimeLapseFrame frame : result.frames()) {

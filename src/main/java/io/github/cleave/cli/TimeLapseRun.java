@@ -50,7 +50,7 @@ final class TimeLapseRun {
     if (saveModel != null) {
       ModelFiles.write(saveModel, result.model());
     }
-    return finish(spec, series, seeds, result, inputs, output, "segment");
+    return finish(spec, series, seeds, result, inputs, output, time, "segment");
   }
 
   static int apply(
@@ -71,7 +71,7 @@ final class TimeLapseRun {
     TimeLapseResult result =
         TimeLapseSegmenter.apply(
             model, series, seeds, time.seedFrame(), withProgress(spec, time, series));
-    return finish(spec, series, seeds, result, inputs, output, "apply");
+    return finish(spec, series, seeds, result, inputs, output, time, "apply");
   }
 
   static Path seedFile(ImageAndSeedOptions input, boolean required) {
@@ -149,10 +149,20 @@ final class TimeLapseRun {
       TimeLapseResult result,
       SegmentationFiles.Inputs inputs,
       OutputFolderOption output,
+      TimeOptions time,
       String command)
       throws Exception {
     String name = SegmentationFiles.baseName(inputs.image());
-    TimeLapseFiles.write(output.out, name, series, seeds, result, inputs, command);
+    TimeLapseFiles.write(
+        output.out,
+        name,
+        series,
+        seeds,
+        result,
+        inputs,
+        command,
+        time.axis(),
+        time.options().seedsFromNeighbour());
     PrintWriter out = spec.commandLine().getOut();
     double ms = 0;
     for (TimeLapseFrame f : result.frames()) {

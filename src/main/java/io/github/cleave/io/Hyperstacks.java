@@ -223,6 +223,17 @@ public final class Hyperstacks {
   }
 
   /** {@link MemoryEstimate} for one time point of {@code series}. */
+  /**
+   * The heap a segmentation of {@code series} time point by time point needs: one time point's work
+   * ({@link MemoryEstimate}) plus the results of every time point kept until they are written
+   * (mask, class map, label image and tracked labels: about 16 bytes per voxel, with the file
+   * buffers).
+   */
+  public static long estimateHeapBytes(OpenedSeries series) {
+    long voxels = (long) series.width() * series.height() * series.depth();
+    return bytesPerTimePoint(series) + 16L * voxels * series.frameCount();
+  }
+
   static long bytesPerTimePoint(OpenedSeries series) {
     int bitDepth = series.bitDepth();
     int bytesPerPixel = bitDepth == 8 ? 1 : bitDepth == 16 ? 2 : 4;

@@ -37,6 +37,8 @@ public final class TimeLapseFiles {
    * Writes every output of {@code result} for the time-lapse {@code series}.
    *
    * @param seeds the seeds of the seeded time point, drawn on the overlay (may be null)
+   * @param axis the time axis asked for, and {@code seedsFromNeighbour} whether time points were
+   *     seeded from their neighbours: both go into the record, so a rerun can tell
    * @return the overlay picture written
    */
   public static BufferedImage write(
@@ -46,7 +48,9 @@ public final class TimeLapseFiles {
       SeedLabels seeds,
       TimeLapseResult result,
       SegmentationFiles.Inputs inputs,
-      String command)
+      String command,
+      TimeAxis axis,
+      boolean seedsFromNeighbour)
       throws IOException {
     List<Path> protectedFiles = SegmentationFiles.inputList(inputs);
     Path mask = outDir.resolve(name + ".mask.tif");
@@ -113,7 +117,8 @@ public final class TimeLapseFiles {
     byte[] zip = RoiExport.zip(roiList);
     AtomicFiles.write(rois, out -> out.write(zip));
     int t = result.seedFrame();
-    Raster raster = series.frame(t);
+    LoadedImage loaded = series.loadedFrame(t);
+    Raster raster = loaded.raster();
     TimeLapseFrame shown = result.frame(t);
     BufferedImage picture =
         OverlayPicture.render(
@@ -127,11 +132,11 @@ public final class TimeLapseFiles {
     byte[] json =
         RunRecord.json(
             name,
-            series.loadedFrame(t),
+            loaded,
             inputs,
             shown.segmentation(),
             command,
-            timeLapseSection(series, result));
+            timeLapseSection(series, result, axis, seedsFromNeighbour));
     AtomicFiles.write(record, out -> out.write(json));
     return picture;
   }
@@ -145,10 +150,21 @@ public final class TimeLapseFiles {
     return byTracked::get;
   }
 
-  private static JsonObject timeLapseSection(OpenedSeries series, TimeLapseResult result) {
+  private static JsonObject timeLapseSection(
+      OpenedSeries series, TimeLapseResult result, TimeAxis axis, boolean seedsFromNeighbour) {
     JsonObject o = new JsonObject();
     o.addProperty("timePoints", result.frameCount());
     o.addProperty("seededTimePoint", result.seedFrame() + 1);
+    o.addProperty("requestedTimeAxis", axis.name());
+    o.addProperty("seedsFromNeighbour", seedsFromNeighbour);
+    int objects = 0;
+    double ms = 0;
+    for (TimeLapseFrame f : result.frames()) {
+      objects += f.objectCount();
+      ms += f.segmentation().timings().totalMs();
+    }
+    o.addProperty("objectsAllTimePoints", objects);
+    o.addProperty("timeMsAllTimePoints", ms);
     o.addProperty("timeAxis", series.timeSource().name());
     o.addProperty("timeAxisReason", series.reason());
     o.addProperty("frameInterval", series.frameInterval());

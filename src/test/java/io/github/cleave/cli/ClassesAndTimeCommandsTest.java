@@ -213,6 +213,19 @@ class ClassesAndTimeCommandsTest {
     ImagePlus single = IJ.openImage(out.resolve("single.mask.tif").toString());
     assertThat(single.getStackSize()).isEqualTo(1);
     assertThat(Files.readString(out.resolve("files.csv"))).contains("lapse.tif", "single.tif");
+    String[] again = {
+      "batch", "--model", model.toString(), "--in", folder.toString(), "--out", out.toString()
+    };
+    r = run(again);
+    assertThat(r.exit()).as(r.err()).isZero();
+    assertThat(r.out()).contains("2 kept from an earlier run");
+    // other time settings: the time-lapse is cut again, the single plane kept
+    String[] other = java.util.Arrays.copyOf(again, again.length + 2);
+    other[again.length] = "--seeds-from-neighbour";
+    other[again.length + 1] = "off";
+    r = run(other);
+    assertThat(r.exit()).as(r.err()).isZero();
+    assertThat(r.out()).contains("1 kept from an earlier run");
   }
 
   /** Every time point agrees with the truth and every cell keeps one number. */
