@@ -3,10 +3,11 @@ package io.github.cleave.segment;
 import java.util.Arrays;
 
 /**
- * Bands around the boundary of a mask, for the steps that treat the voxels near a cut differently
- * ({@link RefinedCut}, {@link EdgeRefinement}): a boundary voxel is one with an axial neighbour of
- * the other class, and a band grows from the boundary voxels by axial steps (city-block distance),
- * across planes or only within them. Breadth-first, no recursion; O(n · steps). Stateless.
+ * Bands around the boundary of a mask (or between the classes of a class map), for the steps that
+ * treat the voxels near a cut differently ({@link RefinedCut}, {@link EdgeRefinement}): a boundary
+ * voxel is one with an axial neighbour of the other class, and a band grows from the boundary
+ * voxels by axial steps (city-block distance), across planes or only within them. Breadth-first, no
+ * recursion; O(n · steps). Stateless.
  */
 final class BoundaryBand {
   private BoundaryBand() {}
@@ -26,7 +27,11 @@ final class BoundaryBand {
     }
   }
 
-  /** Voxels with an axial neighbour of the other class (within its plane when {@code planes}). */
+  /**
+   * Voxels with an axial neighbour of another value (within its plane when {@code planes}): of the
+   * other class in a mask (one value for foreground, 0 for background), of another class in a class
+   * map.
+   */
   static boolean[] boundary(byte[] mask, int w, int h, int d, boolean planes) {
     boolean[] out = new boolean[mask.length];
     int plane = w * h;
@@ -41,14 +46,14 @@ final class BoundaryBand {
         for (int x = 0, p = row; x < w; x++, p++) {
           int left = x > 0 ? -1 : 0;
           int right = x < w - 1 ? 1 : 0;
-          boolean fg = mask[p] != 0;
+          byte v = mask[p];
           out[p] =
-              (mask[p + left] != 0) != fg
-                  | (mask[p + right] != 0) != fg
-                  | (mask[p + up] != 0) != fg
-                  | (mask[p + down] != 0) != fg
-                  | (mask[p + below] != 0) != fg
-                  | (mask[p + above] != 0) != fg;
+              mask[p + left] != v
+                  | mask[p + right] != v
+                  | mask[p + up] != v
+                  | mask[p + down] != v
+                  | mask[p + below] != v
+                  | mask[p + above] != v;
         }
       }
     }

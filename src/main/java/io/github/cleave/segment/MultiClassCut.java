@@ -69,7 +69,7 @@ final class MultiClassCut {
                                 ? PottsEnergy.build(features, costs, seeds, parameters)
                                 : kept[0].withCostsAndSeeds(costs, seeds)),
         classMap -> {
-          SeedLabels fromCut = labelsFromClasses(classMap, seeds, classes, perPlane);
+          SeedLabels fromCut = labelsFromClasses(classMap, seeds, perPlane);
           // null when a class lies all in boundary bands: nothing to learn it from
           return everyClassPresent(fromCut, classes) ? fromCut : null;
         });
@@ -98,19 +98,13 @@ final class MultiClassCut {
    * RefinedCut#BAND} voxels of a boundary between classes (left unlabelled); seeds keep their own
    * label.
    */
-  static SeedLabels labelsFromClasses(
-      byte[] classMap, SeedLabels seeds, int classes, boolean perPlane) {
+  static SeedLabels labelsFromClasses(byte[] classMap, SeedLabels seeds, boolean perPlane) {
     int w = seeds.width();
     int h = seeds.height();
     int d = seeds.depth();
     byte[] labels = classMap.clone();
-    byte[] mask = new byte[classMap.length];
-    for (int c = 1; c <= classes; c++) {
-      for (int i = 0; i < mask.length; i++) {
-        mask[i] = classMap[i] == c ? (byte) 255 : 0;
-      }
-      BoundaryBand.clear(labels, mask, w, h, d, RefinedCut.BAND, perPlane);
-    }
+    // the union of the bands around every class is the band around the class map's boundaries
+    BoundaryBand.clear(labels, classMap, w, h, d, RefinedCut.BAND, perPlane);
     byte[] seedLabels = seeds.labels();
     for (int i = 0; i < labels.length; i++) {
       if (seedLabels[i] != 0) {
