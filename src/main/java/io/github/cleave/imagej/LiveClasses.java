@@ -37,6 +37,8 @@ final class LiveClasses {
   private final Neighborhood neighborhood;
   private float[][] costs; // costs[c - 1][p] = D_p(c) of the model in use
   private double sigma = Double.NaN; // the estimate, made once
+  private PottsEnergy kept; // the last energy, whose boundary weights later updates reuse
+  private EnergyParameters keptParameters; // the parameters it was built with
 
   /**
    * The outcome of one update.
@@ -94,7 +96,13 @@ final class LiveClasses {
     }
     long start = System.nanoTime();
     EnergyParameters p = new EnergyParameters(lambda, s, neighborhood, features.voxelSize());
-    PottsEnergy energy = PottsEnergy.build(features, costs, seeds, p);
+    // the boundary weights depend on the parameters only: kept while they stay
+    PottsEnergy energy =
+        kept != null && p.equals(keptParameters)
+            ? kept.withCostsAndSeeds(costs, seeds)
+            : PottsEnergy.build(features, costs, seeds, p);
+    kept = energy;
+    keptParameters = p;
     if (Thread.currentThread().isInterrupted()) {
       throw new CancellationException("stopped");
     }
