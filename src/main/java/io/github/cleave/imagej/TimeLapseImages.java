@@ -13,10 +13,8 @@ import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.TimeLapseFrame;
 import io.github.cleave.segment.TimeLapseResult;
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 
 /**
  * A segmented time-lapse presented in ImageJ: hyperstacks of one channel, the image's z planes and
@@ -131,30 +129,10 @@ record TimeLapseImages(
     for (TimeLapseFrame f : result.frames()) {
       Segmentation s = f.segmentation();
       int[] channels = ResultImages.measuredChannels(s, series.channelCount());
-      Map<Integer, Integer> classOfTrack = classesOfTracks(f);
       ResultImages.addRows(
-          rt,
-          f.measurements(),
-          classOfTrack == null ? null : classOfTrack::get,
-          stack,
-          s,
-          channels,
-          f.index() + 1);
+          rt, f.measurements(), f.classOfTracked(), stack, s, channels, f.index() + 1);
     }
     return rt;
-  }
-
-  /** Tracked number → class of a frame, or null for two classes. */
-  private static Map<Integer, Integer> classesOfTracks(TimeLapseFrame f) {
-    ClassMap cm = f.segmentation().classes();
-    if (cm == null) {
-      return null;
-    }
-    Map<Integer, Integer> out = new HashMap<>();
-    for (int k = 1; k <= f.objectCount(); k++) {
-      out.put(f.trackedNumber(k), cm.classOf(k));
-    }
-    return out;
   }
 
   /** The ROIs of every time point, named and positioned as in the class comment. */

@@ -59,7 +59,7 @@ public final class ImageOutputs {
   public static void writeMask(
       Path file, byte[] mask, int width, int height, int depth, VoxelSize voxelSize)
       throws IOException {
-    int plane = checkSize(mask.length, width, height, depth, "mask");
+    checkSize(mask.length, width, height, depth, "mask");
     for (int i = 0; i < mask.length; i++) {
       if (mask[i] != 0 && mask[i] != (byte) 255) {
         throw new IllegalArgumentException(
@@ -67,11 +67,7 @@ public final class ImageOutputs {
       }
     }
     ImageStack stack = new ImageStack(width, height);
-    for (int z = 0; z < depth; z++) {
-      byte[] p = new byte[plane];
-      System.arraycopy(mask, z * plane, p, 0, plane);
-      stack.addSlice(null, new ByteProcessor(width, height, p));
-    }
+    addBytePlanes(stack, mask, width, height, depth);
     writeTiff(file, stack, depth, voxelSize, "mask");
   }
 
@@ -85,7 +81,7 @@ public final class ImageOutputs {
   public static void writeClassMap(
       Path file, byte[] classes, int classCount, int width, int height, int depth, VoxelSize size)
       throws IOException {
-    int plane = checkSize(classes.length, width, height, depth, "class map");
+    checkSize(classes.length, width, height, depth, "class map");
     for (int i = 0; i < classes.length; i++) {
       int c = classes[i] & 0xff;
       if (c < 1 || c > classCount) {
@@ -94,12 +90,7 @@ public final class ImageOutputs {
       }
     }
     ImageStack stack = new ImageStack(width, height);
-    for (int z = 0; z < depth; z++) {
-      stack.addSlice(
-          null,
-          new ByteProcessor(
-              width, height, Arrays.copyOfRange(classes, z * plane, (z + 1) * plane)));
-    }
+    addBytePlanes(stack, classes, width, height, depth);
     writeTiff(file, stack, depth, size, "classes");
   }
 
@@ -115,7 +106,7 @@ public final class ImageOutputs {
   public static void writeLabels(
       Path file, int[] labels, int count, int width, int height, int depth, VoxelSize voxelSize)
       throws IOException {
-    int plane = checkSize(labels.length, width, height, depth, "label image");
+    checkSize(labels.length, width, height, depth, "label image");
     if (count < 0 || count > MAX_FLOAT_LABEL) {
       throw new IllegalArgumentException(
           "object count " + count + "; label images hold 0.." + MAX_FLOAT_LABEL + " objects");
@@ -126,25 +117,8 @@ public final class ImageOutputs {
             "label " + labels[i] + " at index " + i + "; labels must lie in 0.." + count);
       }
     }
-    boolean shorts = count <= 65535;
     ImageStack stack = new ImageStack(width, height);
-    for (int z = 0; z < depth; z++) {
-      int offset = z * plane;
-      if (shorts) {
-        short[] p = new short[plane];
-        for (int i = 0; i < plane; i++) {
-          p[i] = (short) labels[offset + i];
-        }
-        ShortProcessor sp = new ShortProcessor(width, height, p, null);
-        stack.addSlice(null, sp);
-      } else {
-        float[] p = new float[plane];
-        for (int i = 0; i < plane; i++) {
-          p[i] = labels[offset + i];
-        }
-        stack.addSlice(null, new FloatProcessor(width, height, p));
-      }
-    }
+    addLabelPlanes(stack, labels, width, height, depth, count <= 65535);
     ImagePlus imp = image(stack, depth, voxelSize, "labels");
     imp.setDisplayRange(0, Math.max(1, count));
     write(file, imp);
@@ -252,7 +226,38 @@ public final class ImageOutputs {
     return u.equals("pixel") || u.equals("pixels");
   }
 
-  private static void write(Path file, ImagePlus imp) throws IOException {
+  /** Adds the planes of one w × h × d label volume: 16-bit if {@code shorts}, else 32-bit float. */
+  static void addLabelPlanes(
+      ImageStack stack, int[] labels, int w, int h, int depth, boolean shorts) {
+    int plane = w * h;
+    for (int z = 0; z < depth; z++) {
+      int offset = z * plane;
+      if (shorts) {
+        short[] p = new short[plane];
+        for (int i = 0; i < plane; i++) {
+          p[i] = (short) labels[offset + i];
+        }
+        stack.addSlice(null, new ShortProcessor(w, h, p, null));
+      } else {
+        float[] p = new float[plane];
+        for (int i = 0; i < plane; i++) {
+          p[i] = labels[offset + i];
+        }
+        stack.addSlice(null, new FloatProcessor(w, h, p));
+      }
+    }
+  }
+
+  /** Adds the planes of one w × h × d byte volume (a mask or a class map). */
+  static void addBytePlanes(ImageStack stack, byte[] values, int w, int h, int depth) {
+    int plane = w * h;
+    for (int z = 0; z < depth; z++) {
+      stack.addSlice(
+          null, new ByteProcessor(w, h, Arrays.copyOfRange(values, z * plane, (z + 1) * plane)));
+    }
+  }
+
+  static void write(Path file, ImagePlus imp) throws IOException {
     byte[] bytes = TiffBytes.encode(imp);
     if (bytes == null) {
       throw new IOException("ImageJ could not encode " + file + " as TIFF");

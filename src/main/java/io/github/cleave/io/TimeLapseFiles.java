@@ -98,12 +98,7 @@ public final class TimeLapseFiles {
       }
       roiList.addAll(RoiExport.roisOfFrame(s.objects(), objectClasses, f.numberOf(), f.index()));
       ObjectsCsv.frameRows(
-          table,
-          f.index(),
-          series.frameInterval(),
-          f.measurements(),
-          stack,
-          c == null ? null : classOfTracked(f, c));
+          table, f.index(), series.frameInterval(), f.measurements(), stack, f.classOfTracked());
     }
     TimeLapseOutputs.writeMasks(mask, masks, geometry);
     TimeLapseOutputs.writeLabels(labels, tracked, largest, geometry);
@@ -139,15 +134,6 @@ public final class TimeLapseFiles {
             timeLapseSection(series, result, axis, seedsFromNeighbour));
     AtomicFiles.write(record, out -> out.write(json));
     return picture;
-  }
-
-  private static java.util.function.IntUnaryOperator classOfTracked(TimeLapseFrame f, ClassMap c) {
-    int[] numberOf = f.numberOf();
-    java.util.Map<Integer, Integer> byTracked = new java.util.HashMap<>();
-    for (int k = 1; k < numberOf.length; k++) {
-      byTracked.put(numberOf[k], c.classOf(k));
-    }
-    return byTracked::get;
   }
 
   private static JsonObject timeLapseSection(

@@ -3,9 +3,6 @@ package io.github.cleave.io;
 import ij.ImagePlus;
 import ij.ImageStack;
 import ij.measure.Calibration;
-import ij.process.ByteProcessor;
-import ij.process.FloatProcessor;
-import ij.process.ShortProcessor;
 import io.github.cleave.image.VoxelSize;
 import java.io.IOException;
 import java.nio.file.Path;
@@ -61,11 +58,12 @@ public final class TimeLapseOutputs {
                   t + 1));
         }
       }
-      addBytePlanes(stack, mask, geometry);
+      ImageOutputs.addBytePlanes(
+          stack, mask, geometry.width(), geometry.height(), geometry.depth());
     }
     ImagePlus imp = image(stack, geometry, "mask");
     imp.setDisplayRange(0, 255);
-    write(file, imp);
+    ImageOutputs.write(file, imp);
   }
 
   /**
@@ -92,7 +90,6 @@ public final class TimeLapseOutputs {
     boolean shorts = count <= 65535;
     int w = geometry.width();
     int h = geometry.height();
-    int plane = w * h;
     ImageStack stack = new ImageStack(w, h);
     for (int t = 0; t < labels.size(); t++) {
       int[] frame = labels.get(t);
@@ -109,26 +106,11 @@ public final class TimeLapseOutputs {
                   count));
         }
       }
-      for (int z = 0; z < geometry.depth(); z++) {
-        int offset = z * plane;
-        if (shorts) {
-          short[] p = new short[plane];
-          for (int i = 0; i < plane; i++) {
-            p[i] = (short) frame[offset + i];
-          }
-          stack.addSlice(null, new ShortProcessor(w, h, p, null));
-        } else {
-          float[] p = new float[plane];
-          for (int i = 0; i < plane; i++) {
-            p[i] = frame[offset + i];
-          }
-          stack.addSlice(null, new FloatProcessor(w, h, p));
-        }
-      }
+      ImageOutputs.addLabelPlanes(stack, frame, w, h, geometry.depth(), shorts);
     }
     ImagePlus imp = image(stack, geometry, "labels");
     imp.setDisplayRange(0, Math.max(1, count));
-    write(file, imp);
+    ImageOutputs.write(file, imp);
   }
 
   /**
@@ -149,20 +131,11 @@ public final class TimeLapseOutputs {
       for (byte b : map) {
         max = Math.max(max, b & 0xff);
       }
-      addBytePlanes(stack, map, geometry);
+      ImageOutputs.addBytePlanes(stack, map, geometry.width(), geometry.height(), geometry.depth());
     }
     ImagePlus imp = image(stack, geometry, "classes");
     imp.setDisplayRange(0, Math.max(1, max));
-    write(file, imp);
-  }
-
-  private static void addBytePlanes(ImageStack stack, byte[] frame, TimeLapseGeometry geometry) {
-    int plane = geometry.width() * geometry.height();
-    for (int z = 0; z < geometry.depth(); z++) {
-      byte[] p = new byte[plane];
-      System.arraycopy(frame, z * plane, p, 0, plane);
-      stack.addSlice(null, new ByteProcessor(geometry.width(), geometry.height(), p));
-    }
+    ImageOutputs.write(file, imp);
   }
 
   private static void checkFrames(int count, TimeLapseGeometry geometry, String what) {
@@ -215,13 +188,5 @@ public final class TimeLapseOutputs {
     }
     imp.setCalibration(cal);
     return imp;
-  }
-
-  private static void write(Path file, ImagePlus imp) throws IOException {
-    byte[] bytes = TiffBytes.encode(imp);
-    if (bytes == null) {
-      throw new IOException("ImageJ could not encode " + file + " as TIFF");
-    }
-    AtomicFiles.write(file, out -> out.write(bytes));
   }
 }

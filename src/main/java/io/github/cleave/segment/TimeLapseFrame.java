@@ -91,4 +91,24 @@ public record TimeLapseFrame(
   public int trackedNumber(int k) {
     return numberOf[k];
   }
+
+  /**
+   * The class of each tracked number of this frame (tracked number → class 1..K), or null for a
+   * two-class segmentation.
+   */
+  public java.util.function.IntUnaryOperator classOfTracked() {
+    ClassMap classes = segmentation.classes();
+    if (classes == null) {
+      return null;
+    }
+    int largest = 0;
+    for (int k = 1; k < numberOf.length; k++) {
+      largest = Math.max(largest, numberOf[k]);
+    }
+    int[] classOf = new int[largest + 1];
+    for (int k = 1; k < numberOf.length; k++) {
+      classOf[numberOf[k]] = classes.classOf(k);
+    }
+    return number -> classOf[number];
+  }
 }
