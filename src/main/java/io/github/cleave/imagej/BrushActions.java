@@ -74,14 +74,15 @@ final class BrushActions {
       background(
           () -> {
             TimeLapseImages made = timeLapse(seeds, settings);
+            // the kept images are never shown themselves: closing a window frees its pixels
             switch (output) {
               case MASK -> {
-                made.mask().show();
+                copyOf(made.mask()).show();
                 if (made.classes() != null) {
-                  made.classes().show();
+                  copyOf(made.classes()).show();
                 }
               }
-              case LABELS -> made.labels().show();
+              case LABELS -> copyOf(made.labels()).show();
               case MEASURE -> made.table().show(ResultImages.TABLE);
               case ROIS -> made.rois().forEach(RoiManager.getRoiManager()::addRoi);
             }
@@ -178,6 +179,17 @@ final class BrushActions {
       lastSettings = settings;
     }
     return lastTimeLapse;
+  }
+
+  /** A copy of a kept result image to show: pixels, dimensions, calibration, title and info. */
+  private static ImagePlus copyOf(ImagePlus kept) {
+    ImagePlus copy = kept.duplicate();
+    copy.setTitle(kept.getTitle());
+    Object info = kept.getProperty("Info");
+    if (info != null) {
+      copy.setProperty("Info", info);
+    }
+    return copy;
   }
 
   /** Saves the strokes as a ROI zip that {@code Segment Current Image...} and the CLI read. */

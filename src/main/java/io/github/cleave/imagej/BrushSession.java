@@ -389,8 +389,11 @@ final class BrushSession implements ImageListener {
     if (other == imp && (plane() != shownPlane || time.shownTime() != shownTime)) {
       EventQueue.invokeLater(
           () -> {
-            boolean planeMoved = plane() != shownPlane;
             boolean timeMoved = time.shownTime() != shownTime;
+            BrushOverlay.Preview cut = preview;
+            // against the plane last cut, not the plane last drawn: a redraw while another time
+            // point was shown, or a preview drawn before this task ran, must not hide a move
+            boolean planeMoved = cut != null && cut.plane() != plane();
             redraw();
             if (!time.showsSessionTime()) {
               status.accept(time.away()); // the strokes stay on their time point

@@ -180,7 +180,14 @@ class BrushTimeLapseTest {
       BrushDriver.waitFor(
           () -> WindowManager.getImage("brushed-movie.mask") != null, 60_000, "mask shown");
       ImagePlus shown = WindowManager.getImage("brushed-movie.mask");
-      assertThat(shown).isSameAs(made.mask());
+      // a copy of the kept images, so that closing its window cannot free them
+      assertThat(shown).isNotSameAs(made.mask());
+      assertThat(shown.getNFrames()).isEqualTo(made.mask().getNFrames());
+      for (int t = 1; t <= shown.getStackSize(); t++) {
+        assertThat((byte[]) shown.getStack().getPixels(t))
+            .isEqualTo(made.mask().getStack().getPixels(t));
+      }
+      assertThat((String) shown.getProperty("Info")).isEqualTo(made.mask().getProperty("Info"));
       Interpreter.removeBatchModeImage(shown);
     } finally {
       Interpreter.batchMode = wasBatch;
