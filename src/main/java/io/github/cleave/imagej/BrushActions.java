@@ -13,6 +13,7 @@ import io.github.cleave.image.BadInputException;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.io.ModelFiles;
 import io.github.cleave.io.SeedFiles;
+import io.github.cleave.objects.RoiExport;
 import io.github.cleave.segment.Segmentation;
 import io.github.cleave.segment.SegmentationSettings;
 import io.github.cleave.segment.Segmenter;
@@ -22,6 +23,7 @@ import java.io.OutputStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Locale;
 import java.util.concurrent.CancellationException;
 import java.util.function.Consumer;
 import java.util.zip.ZipEntry;
@@ -269,15 +271,44 @@ final class BrushActions {
       return;
     }
     Path file = Path.of(od.getDirectory(), od.getFileName());
-    ImagePlus imp = session.imp;
     try {
-      session.strokes.load(
-          SeedFiles.read(file, imp.getWidth(), imp.getHeight(), session.time.depth()));
-      session.strokesChanged();
+      load(file);
       status.accept("seeds loaded from " + file);
     } catch (BadInputException e) {
       IJ.error("Cleave", e.getMessage());
     }
+  }
+
+  /**
+   * Loads seeds from {@code file} onto the session's planes (event thread).
+   *
+   * @throws BadInputException if the file is unusable, or a ROI of it lies on another time point
+   *     than the session's (seeds drawn for another time point must not be laid on this one)
+   */
+  void load(Path file) {
+    ImagePlus imp = session.imp;
+    if (session.time.isTimeLapse() && file.toString().toLowerCase(Locale.ROOT).endsWith(".zip")) {
+      try {
+        for (Roi roi : RoiExport.readZip(java.nio.file.Files.readAllBytes(file)).values()) {
+          if (roi.hasHyperStackPosition() && roi.getTPosition() != session.time.time() + 1) {
+            throw new BadInputException(
+                String.format(
+                    Locale.ROOT,
+                    "the seeds of %s lie on time point %d, but the brush works on %s: show time"
+                        + " point %d and start the brush there",
+                    file.getFileName(),
+                    roi.getTPosition(),
+                    session.time.where(),
+                    roi.getTPosition()));
+          }
+        }
+      } catch (java.io.IOException e) {
+        throw new BadInputException("seed file " + file + " cannot be read: " + e.getMessage(), e);
+      }
+    }
+    session.strokes.load(
+        SeedFiles.read(file, imp.getWidth(), imp.getHeight(), session.time.depth()));
+    session.strokesChanged();
   }
 
   /** Learns a model from the present seeds and settings and saves it (JSON, for folders). */

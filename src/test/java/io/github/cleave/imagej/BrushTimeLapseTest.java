@@ -133,6 +133,19 @@ class BrushTimeLapseTest {
       TimeSeeds back = TimeSeeds.fromRois(rois, movie, series, 0);
       assertThat(back.frame()).isEqualTo(1);
       assertThat(back.seeds().labels()).isEqualTo(seeds.labels());
+      // loaded into a brush on time point 3, the seeds of time point 2 are refused
+      ImagePlus other = TimeLapseCommandsTest.hyperstack(phantom, "other-movie.tif", false);
+      other.setPosition(1, 1, 3);
+      BrushSession away = new BrushSession(other, line -> {});
+      try {
+        org.assertj.core.api.Assertions.assertThatThrownBy(
+                () -> new BrushActions(away, line -> {}).load(zip))
+            .isInstanceOf(io.github.cleave.image.BadInputException.class)
+            .hasMessageContaining("lie on time point 2")
+            .hasMessageContaining("time point 3 of 4");
+      } finally {
+        EventQueue.invokeAndWait(away::close);
+      }
     } finally {
       Files.deleteIfExists(zip);
     }
