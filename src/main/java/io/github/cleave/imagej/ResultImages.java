@@ -6,11 +6,8 @@ import ij.gui.Roi;
 import ij.macro.Interpreter;
 import ij.measure.ResultsTable;
 import ij.plugin.frame.RoiManager;
-import ij.process.ByteProcessor;
-import ij.process.FloatProcessor;
-import ij.process.ImageProcessor;
-import ij.process.ShortProcessor;
 import io.github.cleave.image.Raster;
+import io.github.cleave.io.ImageOutputs;
 import io.github.cleave.io.ModelFiles;
 import io.github.cleave.io.ObjectsCsv;
 import io.github.cleave.objects.ObjectLabels;
@@ -226,39 +223,19 @@ record ResultImages(
   /** A stack of byte planes holding {@code values} (w · h · d, plane after plane). */
   static ImageStack byteStack(byte[] values, int w, int h, int d) {
     ImageStack stack = new ImageStack(w, h);
-    int plane = w * h;
-    for (int z = 0; z < d; z++) {
-      byte[] p = new byte[plane];
-      System.arraycopy(values, z * plane, p, 0, plane);
-      stack.addSlice(null, new ByteProcessor(w, h, p));
-    }
+    ImageOutputs.addBytePlanes(stack, values, w, h, d);
     return stack;
   }
 
   private static ImageStack labelStack(ObjectLabels objects) {
-    int w = objects.width();
-    int h = objects.height();
-    int plane = w * h;
-    int[] labels = objects.labels();
-    boolean shorts = objects.count() <= 65535;
-    ImageStack stack = new ImageStack(w, h);
-    for (int z = 0; z < objects.depth(); z++) {
-      ImageProcessor ip;
-      if (shorts) {
-        short[] p = new short[plane];
-        for (int i = 0; i < plane; i++) {
-          p[i] = (short) labels[z * plane + i];
-        }
-        ip = new ShortProcessor(w, h, p, null);
-      } else {
-        float[] p = new float[plane];
-        for (int i = 0; i < plane; i++) {
-          p[i] = labels[z * plane + i];
-        }
-        ip = new FloatProcessor(w, h, p);
-      }
-      stack.addSlice(null, ip);
-    }
+    ImageStack stack = new ImageStack(objects.width(), objects.height());
+    ImageOutputs.addLabelPlanes(
+        stack,
+        objects.labels(),
+        objects.width(),
+        objects.height(),
+        objects.depth(),
+        objects.count() <= 65535);
     return stack;
   }
 }

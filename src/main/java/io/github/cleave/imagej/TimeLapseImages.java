@@ -4,8 +4,7 @@ import ij.ImagePlus;
 import ij.ImageStack;
 import ij.gui.Roi;
 import ij.measure.ResultsTable;
-import ij.process.FloatProcessor;
-import ij.process.ShortProcessor;
+import io.github.cleave.io.ImageOutputs;
 import io.github.cleave.io.OpenedSeries;
 import io.github.cleave.objects.RoiExport;
 import io.github.cleave.segment.ClassMap;
@@ -74,12 +73,8 @@ record TimeLapseImages(
     List<byte[]> classMaps = new ArrayList<>();
     for (TimeLapseFrame f : result.frames()) {
       Segmentation s = f.segmentation();
-      ImageStack m = ResultImages.byteStack(s.mask(), w, h, d);
-      int[] tracked = f.trackedLabels();
-      for (int z = 0; z < d; z++) {
-        maskStack.addSlice(null, m.getProcessor(z + 1));
-        labelStack.addSlice(null, labelPlane(tracked, z * w * h, w, h, shorts));
-      }
+      ImageOutputs.addBytePlanes(maskStack, s.mask(), w, h, d);
+      ImageOutputs.addLabelPlanes(labelStack, f.trackedLabels(), w, h, d, shorts);
       if (s.isMultiClass()) {
         classMaps.add(s.classes().labels());
       }
@@ -102,23 +97,6 @@ record TimeLapseImages(
     mask.setDisplayRange(0, 255);
     labels.setDisplayRange(0, Math.max(1, tracks));
     return new TimeLapseImages(mask, labels, classes, table(result, series), result, notes);
-  }
-
-  private static ij.process.ImageProcessor labelPlane(
-      int[] labels, int offset, int w, int h, boolean shorts) {
-    int plane = w * h;
-    if (shorts) {
-      short[] p = new short[plane];
-      for (int i = 0; i < plane; i++) {
-        p[i] = (short) labels[offset + i];
-      }
-      return new ShortProcessor(w, h, p, null);
-    }
-    float[] p = new float[plane];
-    for (int i = 0; i < plane; i++) {
-      p[i] = labels[offset + i];
-    }
-    return new FloatProcessor(w, h, p);
   }
 
   /** The table: per time point, the tracked measurements with a {@code frame} column. */

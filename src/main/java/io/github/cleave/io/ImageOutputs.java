@@ -227,7 +227,7 @@ public final class ImageOutputs {
   }
 
   /** Adds the planes of one w × h × d label volume: 16-bit if {@code shorts}, else 32-bit float. */
-  static void addLabelPlanes(
+  public static void addLabelPlanes(
       ImageStack stack, int[] labels, int w, int h, int depth, boolean shorts) {
     int plane = w * h;
     for (int z = 0; z < depth; z++) {
@@ -249,7 +249,7 @@ public final class ImageOutputs {
   }
 
   /** Adds the planes of one w × h × d byte volume (a mask or a class map). */
-  static void addBytePlanes(ImageStack stack, byte[] values, int w, int h, int depth) {
+  public static void addBytePlanes(ImageStack stack, byte[] values, int w, int h, int depth) {
     int plane = w * h;
     for (int z = 0; z < depth; z++) {
       stack.addSlice(
