@@ -1,5 +1,6 @@
 package io.github.cleave.image;
 
+import java.util.Arrays;
 import java.util.Locale;
 
 /**
@@ -79,20 +80,27 @@ public final class SeedLabels {
 
   /** The largest label present (0 when there is no seed). */
   public int maxLabel() {
-    int max = 0;
-    for (byte b : labels) {
-      max = Math.max(max, b & 0xff);
-    }
-    return max;
+    return countsPerLabel().length - 1;
   }
 
   /** Number of seed voxels per label, indexed by label 0..maxLabel. */
   public long[] countsPerLabel() {
-    long[] counts = new long[maxLabel() + 1];
+    // seeds are sparse: counting only the labelled voxels avoids a chain of increments of one
+    // counter (label 0) that would wait for each other; label 0 is what remains
+    long[] counts = new long[256];
+    long labelled = 0;
     for (byte b : labels) {
-      counts[b & 0xff]++;
+      if (b != 0) {
+        counts[b & 0xff]++;
+        labelled++;
+      }
     }
-    return counts;
+    counts[0] = labels.length - labelled;
+    int max = 255;
+    while (max > 0 && counts[max] == 0) {
+      max--;
+    }
+    return Arrays.copyOf(counts, max + 1);
   }
 
   /** True when this has the size of {@code raster}. */

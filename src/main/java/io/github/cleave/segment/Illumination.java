@@ -80,42 +80,76 @@ public final class Illumination {
    */
   public static Flattening flatten(
       Raster features, SeedLabels seeds, double radius, boolean lightBackground) {
+    int channels = features.channelCount();
+    float[][] out = new float[channels][];
+    double[] strength = new double[channels];
+    double[] kept = new double[channels];
+    for (int c = 0; c < channels; c++) {
+      float[] values = features.channel(c);
+      float[] background = background(features, c, radius, lightBackground);
+      out[c] = flattened(values, background);
+      double contrast = seedContrast(values, seeds);
+      strength[c] = trendStrength(background, contrast);
+      kept[c] = seedContrast(out[c], seeds) / contrast;
+    }
+    return new Flattening(withChannels(features, out), strength, kept, lightBackground);
+  }
+
+  /**
+   * The flattened image alone, as {@link #flatten} computes it, without the data of AUTO's decision
+   * (for applying a model that has already decided).
+   */
+  public static Raster flattened(Raster features, double radius, boolean lightBackground) {
+    float[][] out = new float[features.channelCount()][];
+    for (int c = 0; c < out.length; c++) {
+      out[c] = flattened(features.channel(c), background(features, c, radius, lightBackground));
+    }
+    return withChannels(features, out);
+  }
+
+  /** The rolling-ball background of channel c, plane by plane. */
+  private static float[] background(
+      Raster features, int c, double radius, boolean lightBackground) {
     int w = features.width();
     int h = features.height();
     int plane = w * h;
     // A ball wider than the image rolls the same as one as wide as the image (and ImageJ's
     // implementation fails on radii far beyond the image size).
     double ballRadius = Math.min(radius, Math.max(w, h));
-    float[][] out = new float[features.channelCount()][];
-    double[] strength = new double[features.channelCount()];
-    double[] kept = new double[features.channelCount()];
-    for (int c = 0; c < features.channelCount(); c++) {
-      float[] values = features.channel(c);
-      float[] background = new float[values.length];
-      for (int z = 0; z < features.depth(); z++) {
-        float[] pixels = Arrays.copyOfRange(values, z * plane, (z + 1) * plane);
-        FloatProcessor fp = new FloatProcessor(w, h, pixels);
-        BackgroundSubtracter subtracter = new BackgroundSubtracter();
-        subtracter.rollingBallBackground(fp, ballRadius, true, lightBackground, false, true, true);
-        System.arraycopy((float[]) fp.getPixels(), 0, background, z * plane, plane);
-      }
-      double mean = 0;
-      for (float b : background) {
-        mean += b;
-      }
-      mean /= background.length;
-      float[] flat = new float[values.length];
-      for (int i = 0; i < flat.length; i++) {
-        flat[i] = (float) (values[i] - background[i] + mean);
-      }
-      out[c] = flat;
-      double contrast = seedContrast(values, seeds);
-      strength[c] = trendStrength(background, contrast);
-      kept[c] = seedContrast(flat, seeds) / contrast;
+    float[] values = features.channel(c);
+    float[] background = new float[values.length];
+    for (int z = 0; z < features.depth(); z++) {
+      float[] pixels = Arrays.copyOfRange(values, z * plane, (z + 1) * plane);
+      FloatProcessor fp = new FloatProcessor(w, h, pixels);
+      BackgroundSubtracter subtracter = new BackgroundSubtracter();
+      subtracter.rollingBallBackground(fp, ballRadius, true, lightBackground, false, true, true);
+      System.arraycopy((float[]) fp.getPixels(), 0, background, z * plane, plane);
     }
-    Raster flattened =
-        new Raster(w, h, features.depth(), out, features.voxelSize(), features.kind());
-    return new Flattening(flattened, strength, kept, lightBackground);
+    return background;
+  }
+
+  /** {@code values − background + mean(background)}: flat, at the image's mean level. */
+  private static float[] flattened(float[] values, float[] background) {
+    double mean = 0;
+    for (float b : background) {
+      mean += b;
+    }
+    mean /= background.length;
+    float[] flat = new float[values.length];
+    for (int i = 0; i < flat.length; i++) {
+      flat[i] = (float) (values[i] - background[i] + mean);
+    }
+    return flat;
+  }
+
+  private static Raster withChannels(Raster features, float[][] channels) {
+    return new Raster(
+        features.width(),
+        features.height(),
+        features.depth(),
+        channels,
+        features.voxelSize(),
+        features.kind());
   }
 
   /**

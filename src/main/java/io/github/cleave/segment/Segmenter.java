@@ -130,9 +130,8 @@ public final class Segmenter {
     Raster features = SegmentInputs.features(calibrated, model.settings());
     if (model.flatten()) {
       features =
-          Illumination.flatten(
-                  features, hard, model.settings().flattenRadius(), model.lightBackground())
-              .flattened();
+          Illumination.flattened(
+              features, model.settings().flattenRadius(), model.lightBackground());
     }
     double flattenMs = millisSince(start);
     return applyTo(model, calibrated, hard, features, flattenMs, 0, warnings);

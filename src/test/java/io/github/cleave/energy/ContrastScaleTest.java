@@ -80,4 +80,50 @@ class ContrastScaleTest {
       }
     }
   }
+
+  @Test
+  void wholeNumberImagesGiveTheDefinitionBitForBit() {
+    // 8- and 16-bit values: every squared difference and every partial sum is a whole number below
+    // 2^53, so the definition summed in doubles is exact and the estimate must equal it exactly.
+    SplittableRandom random = new SplittableRandom(17L);
+    for (int trial = 0; trial < 60; trial++) {
+      int w = 1 + random.nextInt(40);
+      int h = 1 + random.nextInt(40);
+      int d = random.nextBoolean() ? 1 : 1 + random.nextInt(5);
+      Neighborhood nb =
+          d == 1
+              ? new Neighborhood[] {Neighborhood.N4, Neighborhood.N8, Neighborhood.N16}
+                  [random.nextInt(3)]
+              : new Neighborhood[] {Neighborhood.N6, Neighborhood.N18, Neighborhood.N26}
+                  [random.nextInt(3)];
+      int top = random.nextBoolean() ? 255 : 65535;
+      float[] v = new float[w * h * d];
+      for (int i = 0; i < v.length; i++) {
+        v[i] = random.nextInt(top + 1);
+      }
+      Raster r =
+          Raster.grey(
+              w, h, d, v, VoxelSize.PIXELS, top == 255 ? PixelKind.GREY8 : PixelKind.GREY16);
+      double sum = 0;
+      long pairs = 0;
+      for (int p = 0; p < v.length; p++) {
+        int x = p % w;
+        int y = p / w % h;
+        int z = p / (w * h);
+        for (int k = 0; k < nb.size(); k += 2) {
+          int qx = x + nb.dx(k);
+          int qy = y + nb.dy(k);
+          int qz = z + nb.dz(k);
+          if (qx >= 0 && qy >= 0 && qz >= 0 && qx < w && qy < h && qz < d) {
+            double diff = (double) v[p] - v[qx + w * (qy + h * qz)];
+            sum += diff * diff;
+            pairs++;
+          }
+        }
+      }
+      double mean = pairs == 0 ? 0 : sum / pairs;
+      double expected = mean == 0 ? Double.MIN_NORMAL : Math.sqrt(0.5 * mean);
+      assertThat(ContrastScale.estimate(r, nb)).isEqualTo(expected);
+    }
+  }
 }
