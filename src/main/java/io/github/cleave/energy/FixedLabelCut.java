@@ -268,9 +268,10 @@ public final class FixedLabelCut {
      * {@code p}; the returned array is reused by the next call.
      */
     long[] of(int p, float[] backgroundCost, float[] foregroundCost, int[] out, int offset) {
-      int x = p % width;
-      int y = p / width % height;
-      int z = p / (width * height);
+      int row = p / width; // one division in a plane, two in a stack
+      int x = p - row * width;
+      int z = depth == 1 ? 0 : row / height;
+      int y = row - z * height;
       long toSource = CapacityScale.toCapacity(backgroundCost[p]);
       long toSink = CapacityScale.toCapacity(foregroundCost[p]);
       for (int k = 0; k < directions; k++) {

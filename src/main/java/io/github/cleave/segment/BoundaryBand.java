@@ -143,9 +143,10 @@ final class BoundaryBand {
    */
   static int[] axialNeighbours(int p, int w, int h, int d, boolean planes, int[] out) {
     int plane = w * h;
-    int x = p % w;
-    int y = p / w % h;
-    int z = p / plane;
+    int row = p / w; // one division in a plane, two in a stack: this runs for every band voxel
+    int x = p - row * w;
+    int z = d == 1 ? 0 : row / h;
+    int y = row - z * h;
     out[0] = x > 0 ? p - 1 : -1;
     out[1] = x < w - 1 ? p + 1 : -1;
     out[2] = y > 0 ? p - w : -1;
