@@ -38,12 +38,7 @@ class ContrastScaleTest {
       int w = 1 + random.nextInt(9);
       int h = 1 + random.nextInt(9);
       int d = random.nextBoolean() ? 1 : 1 + random.nextInt(4);
-      Neighborhood nb =
-          d == 1
-              ? new Neighborhood[] {Neighborhood.N4, Neighborhood.N8, Neighborhood.N16}
-                  [random.nextInt(3)]
-              : new Neighborhood[] {Neighborhood.N6, Neighborhood.N18, Neighborhood.N26}
-                  [random.nextInt(3)];
+      Neighborhood nb = anyNeighborhood(random, d);
       int channels = 1 + random.nextInt(3);
       float[][] data = new float[channels][w * h * d];
       for (float[] c : data) {
@@ -90,12 +85,7 @@ class ContrastScaleTest {
       int w = 1 + random.nextInt(40);
       int h = 1 + random.nextInt(40);
       int d = random.nextBoolean() ? 1 : 1 + random.nextInt(5);
-      Neighborhood nb =
-          d == 1
-              ? new Neighborhood[] {Neighborhood.N4, Neighborhood.N8, Neighborhood.N16}
-                  [random.nextInt(3)]
-              : new Neighborhood[] {Neighborhood.N6, Neighborhood.N18, Neighborhood.N26}
-                  [random.nextInt(3)];
+      Neighborhood nb = anyNeighborhood(random, d);
       int top = random.nextBoolean() ? 255 : 65535;
       float[] v = new float[w * h * d];
       for (int i = 0; i < v.length; i++) {
@@ -125,5 +115,14 @@ class ContrastScaleTest {
       double expected = mean == 0 ? Double.MIN_NORMAL : Math.sqrt(0.5 * mean);
       assertThat(ContrastScale.estimate(r, nb)).isEqualTo(expected);
     }
+  }
+
+  /** One of the three neighbourhoods of a plane (d = 1) or of a stack, at random. */
+  private static Neighborhood anyNeighborhood(SplittableRandom random, int d) {
+    Neighborhood[] choice =
+        d == 1
+            ? new Neighborhood[] {Neighborhood.N4, Neighborhood.N8, Neighborhood.N16}
+            : new Neighborhood[] {Neighborhood.N6, Neighborhood.N18, Neighborhood.N26};
+    return choice[random.nextInt(3)];
   }
 }
