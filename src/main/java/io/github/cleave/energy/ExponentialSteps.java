@@ -79,6 +79,9 @@ final class ExponentialSteps {
     }
     int i = start[(int) (x * bucketsPerUnit)];
     double[] t = thresholds;
+    // most buckets hold at most one threshold: its step is taken without a branch, and the loop
+    // below, for the rare crowded bucket, is almost never entered (a well predicted branch)
+    i += t[i] <= x ? 1 : 0;
     while (t[i] <= x) {
       i++; // ends at the latest at t[m - 1] = limit > x
     }
