@@ -5,6 +5,7 @@ import io.github.cleave.batch.BatchResult;
 import io.github.cleave.batch.BatchRunner;
 import io.github.cleave.batch.BatchSettings;
 import io.github.cleave.io.ModelFiles;
+import io.github.cleave.segment.IlluminationMode;
 import io.github.cleave.segment.SegmentationSettings;
 import io.github.cleave.segment.Segmenter;
 import io.github.cleave.synth.Phantom;
@@ -34,7 +35,9 @@ import java.util.stream.Stream;
  *
  * <p>Arguments ({@code key=value}): {@code images=24}, {@code size=512}, {@code threads=1,2},
  * {@code warmup=1}, {@code repeats=3}, {@code seed=20261202}, {@code dir=} (work folder; default a
- * temporary one), {@code rounds=3} (refinement rounds of the model, the default). The word {@code all} is ignored.
+ * temporary one), {@code rounds=3} (refinement rounds of the model, the default), {@code
+ * illumination=AUTO} (the model's flattening setting: AUTO flattens these unevenly lit phantoms,
+ * OFF gives the model of evenly lit images). The word {@code all} is ignored.
  */
 public final class BatchBenchmark {
   private BatchBenchmark() {}
@@ -49,6 +52,7 @@ public final class BatchBenchmark {
     o.put("seed", Long.toString(SamplePhantoms.DEFAULT_SEED));
     o.put("dir", "");
     o.put("rounds", Integer.toString(SegmentationSettings.defaults().refinementRounds()));
+    o.put("illumination", "AUTO");
     for (String arg : args) {
       if (arg.equals("all")) {
         continue;
@@ -84,19 +88,23 @@ public final class BatchBenchmark {
             learnFrom.seeds(),
             SegmentationSettings.defaults().toBuilder()
                 .refinementRounds(Integer.parseInt(o.get("rounds")))
-                .build()));
+                .build()
+                .withIllumination(
+                    IlluminationMode.valueOf(o.get("illumination")),
+                    SegmentationSettings.DEFAULT_FLATTEN_RADIUS)));
 
     double load = ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage();
     System.out.println(GridBenchmark.machine());
     System.out.println(
         String.format(
             Locale.ROOT,
-            "%d images of %d x %d, 16-bit grey; model with %s refinement rounds; load average"
-                + " before the runs %.2f",
+            "%d images of %d x %d, 16-bit grey; model with %s refinement rounds, illumination"
+                + " %s; load average before the runs %.2f",
             images,
             size,
             size,
             o.get("rounds"),
+            o.get("illumination"),
             load));
     System.out.println();
     System.out.println("| threads | median s | images/s | efficiency | runs (s) |");
