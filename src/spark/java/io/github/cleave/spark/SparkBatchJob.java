@@ -135,7 +135,7 @@ public final class SparkBatchJob implements Callable<Integer> {
               + partitions
               + " partition(s)");
       err.flush();
-      JavaSparkContext sc = shared != null ? shared : new JavaSparkContext(conf);
+      JavaSparkContext sc = shared != null ? shared : start(conf);
       List<FileOutcome> outcomes;
       try {
         if (shared == null) {
@@ -183,6 +183,21 @@ public final class SparkBatchJob implements Callable<Integer> {
       conf.setIfMissing("spark.driver.bindAddress", "127.0.0.1");
     }
     return conf;
+  }
+
+  /** Starts the job's own context, explaining the usual reason when it cannot. */
+  private static JavaSparkContext start(SparkConf conf) {
+    try {
+      return new JavaSparkContext(conf);
+    } catch (IllegalAccessError | ExceptionInInitializerError e) {
+      throw new BadInputException(
+          "Spark cannot start on this Java: it needs the --add-opens flags and"
+              + " -Djdk.reflect.useDirectMethodHandle=false (spark-submit adds the first; see the"
+              + " README, section On a Spark cluster, or the property spark.jvm.flags in pom.xml)"
+              + " ("
+              + e
+              + ")");
+    }
   }
 
   private static void checkPaths(BatchSettings s, String masterUrl) {
