@@ -101,7 +101,7 @@ public final class BatchRunner {
         outcomes.add(d.outcome());
         thumbnails.add(d.thumbnail());
       }
-      return run.finish(outcomes, thumbnails);
+      return run.finish(outcomes, thumbnails, settings.threads());
     }
   }
 

@@ -162,12 +162,14 @@ public final class PreparedRun implements AutoCloseable {
    * Writes the folder outputs, thumbnails read back from each file's overlay picture.
    *
    * @param outcomes one per entry of {@link #files()}, in that order
+   * @param workers how many files were processed at the same time (at least 1), recorded in {@code
+   *     run.json} as the run's {@code threads}
    * @return the run's result, as {@code run.json} records it
    * @throws IllegalArgumentException if the outcomes do not match the files
    * @throws IOException if a folder output cannot be written
    */
-  public BatchResult finish(List<FileOutcome> outcomes) throws IOException {
-    return finish(outcomes, null);
+  public BatchResult finish(List<FileOutcome> outcomes, int workers) throws IOException {
+    return finish(outcomes, null, workers);
   }
 
   /**
@@ -175,7 +177,7 @@ public final class PreparedRun implements AutoCloseable {
    *
    * @param thumbnails one per file (null where there is none), or null to read them back
    */
-  BatchResult finish(List<FileOutcome> outcomes, List<BufferedImage> thumbnails)
+  BatchResult finish(List<FileOutcome> outcomes, List<BufferedImage> thumbnails, int workers)
       throws IOException {
     if (outcomes.size() != inputs.size()) {
       throw new IllegalArgumentException(
@@ -208,7 +210,7 @@ public final class PreparedRun implements AutoCloseable {
       notes.add(sheetNote);
     }
     BatchResult result = new BatchResult(noted, out, started, Instant.now(), notes);
-    RunJson.writeRun(settings, model, modelSha256, ranges, result);
+    RunJson.writeRun(settings.withThreads(workers), model, modelSha256, ranges, result);
     return result;
   }
 

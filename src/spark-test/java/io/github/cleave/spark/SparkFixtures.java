@@ -69,7 +69,7 @@ final class SparkFixtures {
   /**
    * Asserts that two output folders hold the same files with the same bytes, except what differs
    * between any two runs: the time column of {@code files.csv}, records' timings, and in the run
-   * files the times, the output folder and the thread count.
+   * files the times and the output folder.
    */
   static void assertSameOutputs(Path a, Path b) throws IOException {
     assertThat(files(b)).isEqualTo(files(a));
@@ -104,7 +104,6 @@ final class SparkFixtures {
     JsonObject settings = o.getAsJsonObject("settings");
     if (settings != null) {
       settings.remove("out");
-      settings.remove("threads");
     }
     if (o.has("files")) {
       for (JsonElement e : o.getAsJsonArray("files")) {

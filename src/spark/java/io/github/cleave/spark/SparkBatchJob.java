@@ -137,7 +137,9 @@ public final class SparkBatchJob implements Callable<Integer> {
       err.flush();
       JavaSparkContext sc = shared != null ? shared : start(conf);
       List<FileOutcome> outcomes;
+      int workers;
       try {
+        workers = Math.max(1, sc.defaultParallelism());
         if (shared == null) {
           sc.setLogLevel("WARN");
         }
@@ -161,7 +163,7 @@ public final class SparkBatchJob implements Callable<Integer> {
         }
       }
       run.removeLeftoverParts();
-      BatchResult result = run.finish(outcomes);
+      BatchResult result = run.finish(outcomes, workers);
       return BatchReport.print(result, settings.out(), spec.commandLine().getOut(), err);
     }
   }
