@@ -1,20 +1,12 @@
 package io.github.cleave.batch;
 
 import io.github.cleave.image.BadInputException;
-import io.github.cleave.io.Checksums;
-import io.github.cleave.io.ModelFiles;
-import io.github.cleave.render.DisplayRange;
-import io.github.cleave.segment.SegmentationModel;
 import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.nio.file.Files;
-import java.nio.file.Path;
-import java.time.Instant;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import java.util.Optional;
 import java.util.concurrent.CancellationException;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.ExecutionException;
@@ -28,15 +20,17 @@ import java.util.concurrent.atomic.AtomicInteger;
  * Applies a saved model to every matching file of a folder: the folder runner behind the {@code
  * batch} command, usable by any front door (no console, no exit).
  *
- * <p><b>Order of work.</b> Read the model; find the files ({@link InputScan}: sorted by relative
- * path, clashes and folder mistakes refused up front with a {@link BadInputException}); lock the
- * output folder; refuse a folder whose {@code run.started.json} names another model unless {@code
- * overwrite}; delete hidden temporary files left by a killed run and an old {@code run.json}; fix
- * one display range per channel for the run's pictures (kept from {@code run.started.json} when
- * resuming, else from the first file, in run order, that reads and has the model's channel count)
- * and write {@code run.started.json}; then segment the files on {@code threads} workers, each
- * reading one image at a time within a shared heap budget ({@link MemoryBudget}); then write {@code
- * objects.csv}, {@code files.csv}, {@code contact-sheet.png} and, last, {@code run.json}.
+ * <p><b>Order of work.</b> The driver-side phases are {@link PreparedRun}'s, the per-file work
+ * {@link FileTask}'s, shared with distributed runs. Read the model; find the files ({@link
+ * InputScan}: sorted by relative path, clashes and folder mistakes refused up front with a {@link
+ * BadInputException}); lock the output folder; refuse a folder whose {@code run.started.json} names
+ * another model unless {@code overwrite}; delete hidden temporary files left by a killed run and an
+ * old {@code run.json}; fix one display range per channel for the run's pictures (kept from {@code
+ * run.started.json} when resuming, else from the first file, in run order, that reads and has the
+ * model's channel count) and write {@code run.started.json}; then segment the files on {@code
+ * threads} workers, each reading one image at a time within a shared heap budget ({@link
+ * MemoryBudget}); then write {@code objects.csv}, {@code files.csv}, {@code contact-sheet.png} and,
+ * last, {@code run.json}.
  *
  * <p><b>Isolation and resume.</b> A file that cannot be segmented fails alone ({@link FileJob}). A
  * file whose outputs are complete from an earlier run with the same model, image and seeds is kept,
@@ -98,54 +92,20 @@ public final class BatchRunner {
   }
 
   private BatchResult runLocked() throws IOException {
-    Instant started = Instant.now();
-    SegmentationModel model = ModelFiles.read(settings.model());
-    String modelSha = Checksums.sha256(settings.model());
-    List<InputScan.InputFile> files = InputScan.scan(settings);
-    Path out = settings.out();
-    Files.createDirectories(out);
-    try (AutoCloseable lock = RunMarkers.lock(out)) {
-      Optional<RunMarkers.Started> earlier = RunMarkers.readStarted(out);
-      if (earlier.isPresent()
-          && !earlier.get().modelSha256().equals(modelSha)
-          && !settings.overwrite()) {
-        throw new BadInputException(
-            "the output folder "
-                + out
-                + " holds a run of another model (SHA-256 "
-                + earlier.get().modelSha256().substring(0, 12)
-                + "..., this model is "
-                + modelSha.substring(0, 12)
-                + "...): give another --out, or --overwrite to replace that run's outputs");
+    try (PreparedRun run = PreparedRun.prepare(settings)) {
+      FileTask task = run.task(MemoryBudget.of(settings.heapBudgetBytes()), () -> cancelled);
+      FileJob.Done[] done = segmentAll(task, run.inputs());
+      List<FileOutcome> outcomes = new ArrayList<>();
+      List<BufferedImage> thumbnails = new ArrayList<>();
+      for (FileJob.Done d : done) {
+        outcomes.add(d.outcome());
+        thumbnails.add(d.thumbnail());
       }
-      RunMarkers.removeLeftoverParts(out);
-      Files.deleteIfExists(out.resolve(RunMarkers.RUN));
-      DisplayRange[] ranges =
-          earlier.isPresent()
-                  && earlier.get().modelSha256().equals(modelSha)
-                  && earlier.get().ranges() != null
-                  && !settings.overwrite()
-              ? earlier.get().ranges()
-              : DisplayRanges.first(files, model);
-      RunJson.writeStarted(out, settings.model(), modelSha, ranges, started);
-      FileJob.Context context =
-          new FileJob.Context(
-              settings,
-              model,
-              modelSha,
-              ranges,
-              MemoryBudget.of(settings.heapBudgetBytes()),
-              () -> cancelled);
-      FileJob.Done[] done = segmentAll(context, files);
-      return finish(model, modelSha, ranges, files, done, started);
-    } catch (IOException | RuntimeException e) {
-      throw e;
-    } catch (Exception e) {
-      throw new IOException("cannot release the lock of " + out + ": " + e.getMessage(), e);
+      return run.finish(outcomes, thumbnails, settings.threads());
     }
   }
 
-  private FileJob.Done[] segmentAll(FileJob.Context context, List<InputScan.InputFile> files)
+  private FileJob.Done[] segmentAll(FileTask task, List<InputScan.InputFile> files)
       throws IOException {
     int n = files.size();
     FileJob.Done[] done = new FileJob.Done[n];
@@ -172,8 +132,7 @@ public final class BatchRunner {
             pool.submit(
                 () -> {
                   for (int i; !cancelled && (i = next.getAndIncrement()) < n; ) {
-                    FileJob.Done d =
-                        FileJob.run(context, files.get(i), i < FolderOutputs.SHEET_FILES);
+                    FileJob.Done d = task.run(files.get(i), i < FolderOutputs.SHEET_FILES);
                     done[i] = d;
                     synchronized (counts) {
                       counts[0]++;
@@ -231,34 +190,5 @@ public final class BatchRunner {
     } catch (InterruptedException e) {
       Thread.currentThread().interrupt();
     }
-  }
-
-  private BatchResult finish(
-      SegmentationModel model,
-      String modelSha,
-      DisplayRange[] ranges,
-      List<InputScan.InputFile> files,
-      FileJob.Done[] done,
-      Instant started)
-      throws IOException {
-    Path out = settings.out();
-    List<FileOutcome> outcomes = new ArrayList<>();
-    List<BufferedImage> thumbnails = new ArrayList<>();
-    List<Path> outDirs = new ArrayList<>();
-    for (int i = 0; i < done.length; i++) {
-      outcomes.add(done[i].outcome());
-      thumbnails.add(done[i].thumbnail());
-      outDirs.add(files.get(i).outDir(out));
-    }
-    outcomes = FolderOutputs.writeObjects(out, outcomes, outDirs);
-    FolderOutputs.writeFiles(out, outcomes);
-    List<String> notes = new ArrayList<>();
-    String sheetNote = FolderOutputs.writeSheet(out, outcomes, thumbnails);
-    if (sheetNote != null) {
-      notes.add(sheetNote);
-    }
-    BatchResult result = new BatchResult(outcomes, out, started, Instant.now(), notes);
-    RunJson.writeRun(settings, model, modelSha, ranges, result);
-    return result;
   }
 }

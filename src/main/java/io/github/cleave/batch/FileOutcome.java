@@ -1,9 +1,11 @@
 package io.github.cleave.batch;
 
+import java.io.Serializable;
 import java.util.Objects;
 
 /**
- * What became of one file of a folder run: one row of {@code files.csv}. Immutable.
+ * What became of one file of a folder run: one row of {@code files.csv}. Immutable and
+ * serialisable, so that a distributed run can send it from a worker to the driver.
  *
  * @param file the path relative to the input folder, with {@code /} between folders
  * @param status whether the file was segmented
@@ -14,7 +16,8 @@ import java.util.Objects;
  * @param reused whether the outputs were already complete and kept (resume) rather than computed
  */
 public record FileOutcome(
-    String file, Status status, String message, int objectCount, double timeMs, boolean reused) {
+    String file, Status status, String message, int objectCount, double timeMs, boolean reused)
+    implements Serializable {
 
   /** Whether a file was segmented. */
   public enum Status {

@@ -37,6 +37,17 @@ final class InputScan {
 
   /** One input of the run. */
   record InputFile(Path path, String relative, String folder, String baseName) {
+    /**
+     * The input at {@code relative} (with {@code /} between folders) below {@code in} (absolute and
+     * normalised, as {@link #scan} uses it): the same value the scan makes for that file.
+     */
+    static InputFile of(Path in, String relative) {
+      Path file = in.resolve(relative);
+      int slash = relative.lastIndexOf('/');
+      String folder = slash < 0 ? "" : relative.substring(0, slash);
+      return new InputFile(file, relative, folder, SegmentationFiles.baseName(file));
+    }
+
     /** The folder of this file's outputs. */
     Path outDir(Path out) {
       return folder.isEmpty() ? out : out.resolve(folder);
@@ -51,8 +62,13 @@ final class InputScan {
     }
   }
 
+  /** The input folder as the scan walks it: absolute and normalised. */
+  static Path root(BatchSettings s) {
+    return s.in().toAbsolutePath().normalize();
+  }
+
   static List<InputFile> scan(BatchSettings s) throws IOException {
-    Path in = s.in().toAbsolutePath().normalize();
+    Path in = root(s);
     Path out = s.out().toAbsolutePath().normalize();
     if (!Files.isDirectory(in)) {
       throw new BadInputException(

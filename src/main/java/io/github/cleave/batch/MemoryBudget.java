@@ -9,8 +9,11 @@ import java.util.Locale;
  * hold too much, and an image whose need exceeds the whole budget is refused at once with the
  * memory it needs, so that parallel workers never run the heap out together and a too-large file
  * fails alone. Thread-safe.
+ *
+ * <p>One budget per JVM that runs files: the local runner makes one per run, a distributed worker
+ * one per worker JVM, shared by its task threads.
  */
-final class MemoryBudget {
+public final class MemoryBudget {
   /** Share of the free heap at the start that images may use; the rest is for everything else. */
   static final double SHARE = 0.8;
 
@@ -25,7 +28,7 @@ final class MemoryBudget {
   }
 
   /** {@code bytes} if positive, else {@link #SHARE} of the heap the JVM can still use. */
-  static MemoryBudget of(long bytes) {
+  public static MemoryBudget of(long bytes) {
     if (bytes > 0) {
       return new MemoryBudget(bytes);
     }

@@ -4,9 +4,7 @@ import io.github.cleave.batch.BatchProgress;
 import io.github.cleave.batch.BatchResult;
 import io.github.cleave.batch.BatchRunner;
 import io.github.cleave.batch.BatchSettings;
-import io.github.cleave.batch.FileOutcome;
 import java.io.PrintWriter;
-import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -40,56 +38,13 @@ import picocli.CommandLine.Spec;
           + " outputs stay, a rerun resumes)."
     })
 final class BatchCommand implements Callable<Integer> {
-  @Option(
-      names = "--model",
-      required = true,
-      paramLabel = "MODEL.json",
-      description = "Model file.")
-  Path model;
-
-  @Option(names = "--in", required = true, paramLabel = "FOLDER", description = "Input folder.")
-  Path in;
-
-  @Option(
-      names = "--out",
-      required = true,
-      paramLabel = "FOLDER",
-      description = "Output folder, created if missing; must not be the input folder.")
-  Path out;
-
-  @Option(
-      names = "--seeds",
-      paramLabel = "FOLDER",
-      description = "Folder of per-image seed files NAME.seeds.tif|png|zip (optional).")
-  Path seeds;
+  @Mixin BatchOptions options;
 
   @Option(
       names = "--threads",
       paramLabel = "N",
       description = "Images segmented at the same time (default: all cores).")
   Integer threads;
-
-  @Option(
-      names = "--pattern",
-      paramLabel = "GLOB",
-      description =
-          "Files to segment, matched case-insensitively against the file name (default:"
-              + " '"
-              + BatchSettings.DEFAULT_PATTERN
-              + "').")
-  String pattern;
-
-  @Option(
-      names = "--recursive",
-      description = "Search subfolders too; outputs go to the same subfolders below --out.")
-  boolean recursive;
-
-  @Option(
-      names = "--overwrite",
-      description = "Segment every file again, even where complete outputs exist.")
-  boolean overwrite;
-
-  @Mixin TimeOptions time;
 
   @Spec CommandSpec spec;
 
@@ -101,9 +56,7 @@ final class BatchCommand implements Callable<Integer> {
           spec.commandLine(), "--threads " + n + ": give 1 or more (default: all cores)");
     }
     PrintWriter err = spec.commandLine().getErr();
-    BatchSettings settings =
-        new BatchSettings(model, in, out, seeds, n, pattern, recursive, overwrite, 0)
-            .withTime(time.axis(), time.seedFrame(), time.options().seedsFromNeighbour());
+    BatchSettings settings = options.settings(n);
     ProgressPrinter printer = new ProgressPrinter(err);
     BatchRunner runner = new BatchRunner(settings, printer);
     Thread stopOnCtrlC =
@@ -119,7 +72,9 @@ final class BatchCommand implements Callable<Integer> {
     Runtime.getRuntime().addShutdownHook(stopOnCtrlC);
     BatchResult result;
     try {
-      Progress.say(spec, "segmenting the files of " + in + " with " + model.getFileName());
+      Progress.say(
+          spec,
+          "segmenting the files of " + options.in() + " with " + options.model().getFileName());
       result = runner.run();
     } finally {
       try {
@@ -129,31 +84,8 @@ final class BatchCommand implements Callable<Integer> {
       }
     }
     printer.finish();
-    for (FileOutcome f : result.files()) {
-      if (f.failed()) {
-        err.println("cleave: " + f.file() + ": " + f.message());
-      }
-    }
-    for (String note : result.notes()) {
-      err.println("cleave: note: " + note);
-    }
-    PrintWriter stdout = spec.commandLine().getOut();
-    int failed = result.failedCount();
-    stdout.println(
-        "batch: "
-            + result.files().size()
-            + " file(s): "
-            + (result.files().size() - failed)
-            + " segmented ("
-            + result.reusedCount()
-            + " kept from an earlier run), "
-            + failed
-            + " failed; see "
-            + out.resolve("files.csv")
-            + ", objects.csv, contact-sheet.png and run.json");
-    stdout.flush();
-    err.flush();
-    return failed == 0 ? ExitCodes.OK : ExitCodes.SOME_FILES_FAILED;
+    return BatchReport.print(
+        result, options.out(), spec.commandLine().getOut(), spec.commandLine().getErr());
   }
 
   /** Prints the progress line on standard error at most about once a second, and at the end. */

@@ -41,7 +41,17 @@ public final class CleaveCommand implements Runnable {
 
   /** A configured command line; tests call {@code execute} on it with their own writers. */
   public static CommandLine newCommandLine() {
-    CommandLine cl = new CommandLine(new CleaveCommand());
+    return withErrorHandling(new CommandLine(new CleaveCommand()));
+  }
+
+  /**
+   * Gives {@code cl} the error handling of this command line: bad arguments and {@code
+   * BadInputException} as one line on standard error with exit code 2, an I/O error likewise,
+   * cancellation with 130; anything else is rethrown.
+   *
+   * @return {@code cl}
+   */
+  public static CommandLine withErrorHandling(CommandLine cl) {
     cl.setParameterExceptionHandler(
         (ex, args) -> {
           PrintWriter err = ex.getCommandLine().getErr();

@@ -3,14 +3,10 @@ package io.github.cleave.cli;
 import static io.github.cleave.cli.MaxflowCommandTest.run;
 import static org.assertj.core.api.Assertions.assertThat;
 
-import io.github.cleave.synth.SamplePhantoms;
-import io.github.cleave.synth.SampleWriter;
 import java.io.IOException;
-import java.io.RandomAccessFile;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
-import java.util.SplittableRandom;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -33,21 +29,7 @@ class BatchCommandTest {
   static void writeFolder() throws IOException {
     model = BatchFixtures.model(shared.resolve("model.json"), SIZE);
     in = shared.resolve("in");
-    good = BatchFixtures.greyImages(in, 4, SIZE);
-    // a corrupt TIFF: a good one with its header overwritten by seeded random bytes
-    Files.copy(in.resolve("img-00.tif"), in.resolve("corrupt.tif"));
-    try (RandomAccessFile f = new RandomAccessFile(in.resolve("corrupt.tif").toFile(), "rw")) {
-      byte[] junk = new byte[64];
-      new SplittableRandom(5).nextBytes(junk);
-      f.seek(4);
-      f.write(junk);
-    }
-    Files.writeString(in.resolve("notes.tif"), "this is a text file, not an image\n");
-    Path scratch = Files.createDirectories(shared.resolve("rgb"));
-    SampleWriter.write(SamplePhantoms.stained(7, SIZE, SIZE), scratch, "colour");
-    Files.move(scratch.resolve("colour.tif"), in.resolve("colour.tif"));
-    Files.createFile(in.resolve("empty.tif"));
-    Files.copy(in.resolve("img-01.tif"), in.resolve("._img-01.tif"));
+    good = BatchFixtures.mixedFolder(in, SIZE);
   }
 
   @Test

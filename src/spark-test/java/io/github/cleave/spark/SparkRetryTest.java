@@ -1,0 +1,94 @@
+package io.github.cleave.spark;
+
+import static io.github.cleave.spark.SparkFixtures.job;
+import static org.assertj.core.api.Assertions.assertThat;
+
+import io.github.cleave.cli.BatchFixtures;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.concurrent.atomic.AtomicInteger;
+import org.apache.spark.Success$;
+import org.apache.spark.api.java.JavaSparkContext;
+import org.apache.spark.scheduler.SparkListener;
+import org.apache.spark.scheduler.SparkListenerTaskEnd;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * A task that fails once, outside the per-file function, after it has written its first file, and
+ * is retried ({@code local[2,2]}: two attempts per task): the run succeeds and leaves exactly the
+ * outputs of a clean run, no duplicate, no partial or hidden temporary file.
+ */
+class SparkRetryTest {
+  static final int SIZE = 128;
+
+  @TempDir static Path shared;
+  static Path model;
+  static Path in;
+  static JavaSparkContext sc;
+  static final AtomicInteger lostTasks = new AtomicInteger();
+
+  @BeforeAll
+  static void start() throws IOException {
+    model = BatchFixtures.model(shared.resolve("model.json"), SIZE);
+    in = shared.resolve("in");
+    BatchFixtures.mixedFolder(in, SIZE);
+    sc = SparkFixtures.context("local[2,2]"); // spark.task.maxFailures = 2 in local mode
+    sc.sc()
+        .addSparkListener(
+            new SparkListener() {
+              @Override
+              public void onTaskEnd(SparkListenerTaskEnd end) {
+                if (end.reason() != Success$.MODULE$) {
+                  lostTasks.incrementAndGet();
+                }
+              }
+            });
+  }
+
+  @AfterAll
+  static void stop() {
+    if (sc != null) {
+      sc.stop();
+    }
+  }
+
+  @Test
+  void aRetriedTaskLeavesTheOutputsOfACleanRun(@TempDir Path tmp)
+      throws IOException, InterruptedException {
+    Path clean = tmp.resolve("clean");
+    Path retried = tmp.resolve("retried");
+    SparkFixtures.Run c = job(sc, args(clean));
+    assertThat(c.exit()).as(c.err()).isEqualTo(3);
+    SparkFixtures.Run r;
+    System.setProperty(SparkBatchJob.FAIL_ONCE_PROPERTY, "2");
+    try {
+      r = job(sc, args(retried));
+    } finally {
+      System.clearProperty(SparkBatchJob.FAIL_ONCE_PROPERTY);
+    }
+    assertThat(r.exit()).as(r.err()).isEqualTo(3);
+    // listener events arrive asynchronously: wait (without a time limit on the result) for them
+    for (int i = 0; i < 200 && lostTasks.get() == 0; i++) {
+      Thread.sleep(50);
+    }
+    assertThat(lostTasks.get()).as("the injected failure happened").isEqualTo(1);
+    assertThat(r.out()).isEqualTo(c.out().replace(clean.toString(), retried.toString()));
+    SparkFixtures.assertSameOutputs(clean, retried);
+  }
+
+  private static String[] args(Path out) {
+    return new String[] {
+      "--model",
+      model.toString(),
+      "--in",
+      in.toString(),
+      "--out",
+      out.toString(),
+      "--files-per-partition",
+      "2"
+    };
+  }
+}

@@ -1,0 +1,58 @@
+package io.github.cleave.spark;
+
+import io.github.cleave.batch.FileOutcome;
+import io.github.cleave.batch.FileTask;
+import io.github.cleave.batch.RunSpec;
+import java.util.ArrayList;
+import java.util.Iterator;
+import java.util.List;
+import org.apache.spark.TaskContext;
+import org.apache.spark.api.java.function.FlatMapFunction;
+import org.apache.spark.broadcast.Broadcast;
+
+/**
+ * The work of one task: opens the per-file function ({@link FileTask}) from the broadcast run
+ * values once, then runs it on each file of the partition in order. A file's failure is caught
+ * inside {@link FileTask#run} and comes back as a failed outcome, so one bad file never fails the
+ * task; only cancellation (the task killed) and errors outside the per-file function end it.
+ *
+ * <p>A retried attempt ({@code attemptNumber > 0}) recomputes every file of its partition instead
+ * of keeping outputs it finds complete: those may be the earlier attempt's, and recomputing simply
+ * replaces them, atomically, with the same bytes, so the retried run reports the files as a clean
+ * run does and leaves no duplicate.
+ *
+ * <p>{@code failOncePartition} is a test hook: the first attempt of that partition throws after its
+ * first file, outside the per-file function; -1 (the default) disables it.
+ */
+final class PartitionWork implements FlatMapFunction<Iterator<IndexedFile>, IndexedOutcome> {
+  private static final long serialVersionUID = 1L;
+
+  private final Broadcast<RunSpec> spec;
+  private final int failOncePartition;
+
+  PartitionWork(Broadcast<RunSpec> spec, int failOncePartition) {
+    this.spec = spec;
+    this.failOncePartition = failOncePartition;
+  }
+
+  @Override
+  public Iterator<IndexedOutcome> call(Iterator<IndexedFile> files) {
+    TaskContext tc = TaskContext.get();
+    FileTask task = FileTask.open(spec.value(), ExecutorBudget.get(), tc::isInterrupted);
+    if (tc.attemptNumber() > 0) {
+      task = task.overwriting();
+    }
+    boolean injectFailure = tc.partitionId() == failOncePartition && tc.attemptNumber() == 0;
+    List<IndexedOutcome> out = new ArrayList<>();
+    while (files.hasNext()) {
+      IndexedFile f = files.next();
+      FileOutcome o = task.run(f.relative());
+      out.add(new IndexedOutcome(f.index(), o));
+      if (injectFailure) {
+        throw new IllegalStateException(
+            "failure injected for testing after " + f.relative() + " (first attempt only)");
+      }
+    }
+    return out.iterator();
+  }
+}
