@@ -37,7 +37,10 @@ import java.util.stream.Stream;
  * {@code warmup=1}, {@code repeats=3}, {@code seed=20261202}, {@code dir=} (work folder; default a
  * temporary one), {@code rounds=3} (refinement rounds of the model, the default), {@code
  * illumination=AUTO} (the model's flattening setting: AUTO flattens these unevenly lit phantoms,
- * OFF gives the model of evenly lit images). The word {@code all} is ignored.
+ * OFF never flattens), {@code lighting=ramp} (the images: {@code ramp} the default nuclei
+ * phantoms with their illumination ramp, {@code even} the same nuclei evenly lit, {@link
+ * SamplePhantoms#nucleiEvenlyLit}, as flat-field-corrected screens record them; the model is learned
+ * on a phantom of the same kind). The word {@code all} is ignored.
  */
 public final class BatchBenchmark {
   private BatchBenchmark() {}
@@ -53,6 +56,7 @@ public final class BatchBenchmark {
     o.put("dir", "");
     o.put("rounds", Integer.toString(SegmentationSettings.defaults().refinementRounds()));
     o.put("illumination", "AUTO");
+    o.put("lighting", "ramp");
     for (String arg : args) {
       if (arg.equals("all")) {
         continue;
@@ -75,11 +79,11 @@ public final class BatchBenchmark {
     Path in = Files.createDirectories(dir.resolve("in"));
     for (int i = 0; i < images; i++) {
       String name = String.format(Locale.ROOT, "img-%03d", i);
-      SampleWriter.write(SamplePhantoms.nuclei(1000 + i, size, size), in, name);
+      SampleWriter.write(phantom(o.get("lighting"), 1000 + i, size), in, name);
       Files.delete(in.resolve(name + ".seeds.tif"));
       Files.delete(in.resolve(name + ".truth.tif"));
     }
-    Phantom learnFrom = SamplePhantoms.nuclei(seed, size, size);
+    Phantom learnFrom = phantom(o.get("lighting"), seed, size);
     Path model = dir.resolve("model.json");
     ModelFiles.write(
         model,
@@ -98,11 +102,12 @@ public final class BatchBenchmark {
     System.out.println(
         String.format(
             Locale.ROOT,
-            "%d images of %d x %d, 16-bit grey; model with %s refinement rounds, illumination"
-                + " %s; load average before the runs %.2f",
+            "%d images of %d x %d, 16-bit grey, lighting %s; model with %s refinement rounds,"
+                + " illumination %s; load average before the runs %.2f",
             images,
             size,
             size,
+            o.get("lighting"),
             o.get("rounds"),
             o.get("illumination"),
             load));
@@ -163,5 +168,13 @@ public final class BatchBenchmark {
         Files.delete(p);
       }
     }
+  }
+
+  private static Phantom phantom(String lighting, long seed, int size) {
+    return switch (lighting) {
+      case "ramp" -> SamplePhantoms.nuclei(seed, size, size);
+      case "even" -> SamplePhantoms.nucleiEvenlyLit(seed, size, size);
+      default -> throw new IllegalArgumentException("lighting " + lighting + ": use ramp or even");
+    };
   }
 }

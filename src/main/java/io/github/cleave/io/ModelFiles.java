@@ -103,6 +103,7 @@ public final class ModelFiles {
     o.addProperty("pixelKind", m.pixelKind().name());
     o.add("voxelSize", voxelSizeToJson(m.voxelSize()));
     o.add("likelihood", LikelihoodModelJson.toJson(m.likelihood()));
+    o.addProperty("likelihoodRefined", m.likelihoodRefined());
     return o;
   }
 
@@ -117,7 +118,8 @@ public final class ModelFiles {
         f.integer("imageChannels"),
         enumValue(PixelKind.class, f, "pixelKind"),
         voxelSizeFromJson(f.object("voxelSize")),
-        f.string("software"));
+        f.string("software"),
+        f.has("likelihoodRefined") && f.bool("likelihoodRefined"));
   }
 
   /** The settings as JSON; also used by the run record. */

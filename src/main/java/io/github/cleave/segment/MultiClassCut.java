@@ -37,7 +37,7 @@ final class MultiClassCut {
         seeds,
         model.likelihood(),
         settings.modelKind(),
-        settings.refinementRounds(),
+        model.roundsWhenApplied(),
         settings.perPlane(),
         Segmenter.energyParameters(model, image));
   }

@@ -78,9 +78,11 @@ public final class Segmenter {
   }
 
   /**
-   * Segments {@code image} with a saved model: the model's likelihoods start the cut and are then
-   * re-estimated on this image for the model's refinement rounds ({@code RefinedCut}); {@code
-   * seeds} (may be null) are hard constraints.
+   * Segments {@code image} with a saved model: the model's likelihoods drive the cut as they are
+   * when its refinement rounds already re-learned them on the learning image (every model that
+   * {@link #learn} or {@link #segment} gives), else they are re-estimated on this image for the
+   * model's refinement rounds ({@code RefinedCut}; {@link SegmentationModel#roundsWhenApplied});
+   * {@code seeds} (may be null) are hard constraints.
    *
    * @throws BadInputException if the image has another channel count than the model's, or seeds do
    *     not fit the image
@@ -202,7 +204,8 @@ public final class Segmenter {
             image.channelCount(),
             image.kind(),
             size,
-            SoftwareVersion.get());
+            SoftwareVersion.get(),
+            false);
     return new Learned(model, calibrated, features, flattenMs, learnMs, warnings);
   }
 
@@ -285,7 +288,7 @@ public final class Segmenter {
         seeds,
         model.likelihood(),
         settings.modelKind(),
-        settings.refinementRounds(),
+        model.roundsWhenApplied(),
         settings.perPlane(),
         energyParameters(model, image));
   }

@@ -16,9 +16,10 @@ import java.util.concurrent.CancellationException;
  * <ol>
  *   <li>The seeded frame s is segmented with its seeds ({@link Segmenter#segment}); the model
  *       learned there (likelihoods after its refinement rounds, contrast scale, illumination
- *       decision) is applied to every other frame ({@link Segmenter#apply}), which re-estimates the
- *       likelihoods on each frame for the model's refinement rounds, so slow bleaching is followed
- *       without the model drifting away from the seeds' frame.
+ *       decision) is applied to every other frame ({@link Segmenter#apply}), re-estimating the
+ *       likelihoods on each frame for the model's refinement rounds ({@link
+ *       SegmentationModel#relearnedOnEachImage}), so slow bleaching is followed without the model
+ *       drifting away from the seeds' frame.
  *   <li>Frames are done forward s+1, s+2, ..., last, then backward s−1, ..., 0. Each gets hard
  *       seeds made from the objects of the frame done just before it (t−1 forward, t+1 backward) by
  *       {@link FrameSeeds}, unless the options turn this off; the seeded frame keeps its own seeds
@@ -78,7 +79,7 @@ public final class TimeLapseSegmenter {
     checkFrame(startFrame, frames.frameCount());
     checkInterrupt(startFrame);
     Raster first = frames.frame(startFrame);
-    Segmentation start = Segmenter.apply(model, first, seeds);
+    Segmentation start = Segmenter.apply(model.relearnedOnEachImage(), first, seeds);
     return track(frames, startFrame, new Shape(first), start, model, options);
   }
 
@@ -139,7 +140,7 @@ public final class TimeLapseSegmenter {
     reference.check(image, t);
     SeedLabels hard =
         options.seedsFromNeighbour() ? options.frameSeeds().from(from.segmentation()) : null;
-    Segmentation result = Segmenter.apply(model, image, hard);
+    Segmentation result = Segmenter.apply(model.relearnedOnEachImage(), image, hard);
     FrameTracking.Renumbering numbers =
         FrameTracking.match(from.trackedLabels(), result.objects(), next);
     done[t] = TimeLapseFrame.of(t, result, numbers.numberOf());

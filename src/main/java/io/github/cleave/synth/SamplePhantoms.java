@@ -4,6 +4,7 @@ import io.github.cleave.image.PixelKind;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.image.VoxelSize;
+import java.util.Arrays;
 import java.util.List;
 import java.util.SplittableRandom;
 
@@ -87,6 +88,23 @@ public final class SamplePhantoms {
    * @throws IllegalArgumentException if the image is smaller than 96 × 96
    */
   public static Phantom nuclei(long seed, int width, int height) {
+    return nuclei(seed, width, height, false);
+  }
+
+  /**
+   * {@link #nuclei} as a flat-field-corrected camera would record it: the same nuclei, texture,
+   * haze and noise recipe, the illumination 1 everywhere (the ramp's random angle is still drawn,
+   * so the nuclei are those of {@code nuclei(seed, width, height)}). The usual input of
+   * high-content screens, whose acquisition corrects the illumination; for benchmarks of folder
+   * runs.
+   *
+   * @throws IllegalArgumentException if the image is smaller than 96 × 96
+   */
+  public static Phantom nucleiEvenlyLit(long seed, int width, int height) {
+    return nuclei(seed, width, height, true);
+  }
+
+  private static Phantom nuclei(long seed, int width, int height, boolean evenlyLit) {
     checkSize(width, height, 96);
     SplittableRandom random = new SplittableRandom(seed);
     int area = width * height;
@@ -95,6 +113,9 @@ public final class SamplePhantoms {
             random, width, height, 1, area / 6000, Math.max(2, area / 50000), 8, 15, 0, 0.35, 1.3);
     double[] illumination =
         Fields.illumination(width, height, random.nextDouble() * 2 * Math.PI, 0.15, 0.3);
+    if (evenlyLit) {
+      Arrays.fill(illumination, 1.0);
+    }
     int[] labels = layout.labels(width, height, 1, null);
     double[] texture = Fields.texture(random, width, height, 1, 1.5, 1.5, 0);
     double[] haze = scaled(Fields.haze(random, width, height, 0.2), HAZE);
@@ -108,7 +129,7 @@ public final class SamplePhantoms {
             pixels,
             new VoxelSize(0.325, 0.325, 1, MICRON, false),
             PixelKind.GREY16);
-    return assemble("nuclei", image, labels, layout, 0, pixels, seed);
+    return assemble(evenlyLit ? "nuclei-even" : "nuclei", image, labels, layout, 0, pixels, seed);
   }
 
   /**
