@@ -44,6 +44,7 @@ class ModelFilesTest {
       assertThat(read.contrastScale()).isEqualTo(model.contrastScale());
       assertThat(read.voxelSize()).isEqualTo(model.voxelSize());
       assertThat(read.imageChannels()).isEqualTo(model.imageChannels());
+      assertThat(read.likelihoodRefined()).isTrue().isEqualTo(model.likelihoodRefined());
       Raster features = p.image().selectChannels(model.settings().drivingChannels());
       int n = features.size();
       float[][] before = new float[2][n];
@@ -78,5 +79,25 @@ class ModelFilesTest {
     assertThatThrownBy(() -> ModelFiles.read(dir.resolve("missing.json")))
         .isInstanceOf(BadInputException.class)
         .hasMessageContaining("does not exist");
+  }
+
+  @Test
+  void aFileWithoutTheRefinedMarkReadsAsSeedLearned(@TempDir Path dir) throws IOException {
+    // model files written before the mark existed: their likelihoods came from the strokes alone,
+    // so applying them keeps re-learning for the model's rounds
+    Phantom p = SamplePhantoms.nuclei(9, 128, 128);
+    SegmentationModel model =
+        Segmenter.learn(p.image(), p.seeds(), SegmentationSettings.defaults());
+    Path file = dir.resolve("old.json");
+    ModelFiles.write(file, model);
+    String json = Files.readString(file, StandardCharsets.UTF_8);
+    assertThat(json).contains("\"likelihoodRefined\": true");
+    Files.writeString(
+        file, json.replace(",\n  \"likelihoodRefined\": true", ""), StandardCharsets.UTF_8);
+    assertThat(Files.readString(file, StandardCharsets.UTF_8)).doesNotContain("likelihoodRefined");
+    SegmentationModel read = ModelFiles.read(file);
+    assertThat(read.likelihoodRefined()).isFalse();
+    assertThat(read.roundsWhenApplied()).isEqualTo(model.settings().refinementRounds());
+    assertThat(model.roundsWhenApplied()).isZero();
   }
 }
