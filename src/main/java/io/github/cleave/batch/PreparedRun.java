@@ -16,6 +16,7 @@ import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.function.BooleanSupplier;
+import java.util.function.Function;
 
 /**
  * The driver side of a folder run, shared by the local {@link BatchRunner} and a distributed job:
@@ -74,11 +75,52 @@ public final class PreparedRun implements AutoCloseable {
    * @throws IOException if the output folder cannot be written
    */
   public static PreparedRun prepare(BatchSettings settings) throws IOException {
+    return prepare(settings, () -> InputScan.scan(settings), InputScan.InputFile::path);
+  }
+
+  /**
+   * Prepares a run whose inputs were listed elsewhere (a file system other than the local one, by
+   * the rules of {@link InputNames}), as {@link #prepare} does for a local folder; the model and
+   * output folder are local ({@code settings.out()} stands for the real output folder: the caller
+   * copies into it what it needs, such as {@code run.started.json}, and copies the run-level files
+   * out). Files are not read except to fix the display ranges, through {@code fetch}.
+   *
+   * @param settings {@code in} is a local folder standing for the input folder (it need not hold
+   *     the files)
+   * @param files the inputs' relative paths ({@code /} between folders), checked with {@link
+   *     InputNames#check} and sorted as strings
+   * @param fetch a local copy of the input at a relative path, called in run order until one can be
+   *     read with the model's channel count; throwing passes the file over
+   */
+  public static PreparedRun prepareListed(
+      BatchSettings settings, List<String> files, Function<String, Path> fetch) throws IOException {
+    for (int i = 1; i < files.size(); i++) {
+      if (files.get(i - 1).compareTo(files.get(i)) >= 0) {
+        throw new IllegalArgumentException(
+            "inputs " + files.get(i - 1) + ", " + files.get(i) + ": give them sorted, each once");
+      }
+    }
+    Path root = InputScan.root(settings);
+    List<InputScan.InputFile> inputs = new ArrayList<>(files.size());
+    for (String relative : files) {
+      inputs.add(InputScan.InputFile.of(root, relative));
+    }
+    return prepare(settings, () -> inputs, f -> fetch.apply(f.relative()));
+  }
+
+  /** Where a run's inputs come from. */
+  private interface Listing {
+    List<InputScan.InputFile> files() throws IOException;
+  }
+
+  private static PreparedRun prepare(
+      BatchSettings settings, Listing listing, Function<InputScan.InputFile, Path> local)
+      throws IOException {
     Instant started = Instant.now();
     SegmentationModel model = ModelFiles.read(settings.model());
     byte[] modelJson = Files.readAllBytes(settings.model());
     String modelSha = Checksums.sha256(settings.model());
-    List<InputScan.InputFile> files = InputScan.scan(settings);
+    List<InputScan.InputFile> files = listing.files();
     Path out = settings.out();
     Files.createDirectories(out);
     AutoCloseable lock = RunMarkers.lock(out);
@@ -104,7 +146,7 @@ public final class PreparedRun implements AutoCloseable {
                   && earlier.get().ranges() != null
                   && !settings.overwrite()
               ? earlier.get().ranges()
-              : DisplayRanges.first(files, model);
+              : DisplayRanges.first(files, model, local);
       RunJson.writeStarted(out, settings.model(), modelSha, ranges, started);
       return new PreparedRun(settings, model, modelSha, modelJson, files, ranges, started, lock);
     } catch (IOException | RuntimeException | Error e) {
