@@ -38,6 +38,11 @@ import java.util.function.Function;
  * <p>The lock is held until {@link #close}. Not thread-safe; one run per instance.
  */
 public final class PreparedRun implements AutoCloseable {
+  /**
+   * How many files, the first in run order, the contact sheet shows (failures beyond are added).
+   */
+  public static final int SHEET_FILES = FolderOutputs.SHEET_FILES;
+
   private final BatchSettings settings;
   private final SegmentationModel model;
   private final String modelSha256;
@@ -179,6 +184,27 @@ public final class PreparedRun implements AutoCloseable {
   /** The serialisable values from which a worker opens the per-file function ({@link FileTask}). */
   public RunSpec spec() {
     return spec;
+  }
+
+  /**
+   * Whether a file name is that of a hidden temporary file a writer leaves while writing ({@code
+   * .NAME.HEX.part}, HEX of 1 to 16 lower-case hexadecimal digits): the files {@link
+   * #removeLeftoverParts} deletes. Copies to other file systems use such names too.
+   */
+  public static boolean isTemporaryName(String name) {
+    return RunMarkers.isPart(name);
+  }
+
+  /**
+   * The suffixes of the files a folder run may write for one input named {@code NAME} ({@code
+   * NAME.mask.tif}, ...), the record last: what a copy of an earlier run's outputs must bring for a
+   * resumed run to keep them.
+   */
+  public static List<String> outputSuffixes() {
+    List<String> all = new ArrayList<>(ResumeCheck.OUTPUTS);
+    all.add(".classes.tif");
+    all.add(".record.json");
+    return Collections.unmodifiableList(all);
   }
 
   /** The per-file function with the model already parsed (local runs). */

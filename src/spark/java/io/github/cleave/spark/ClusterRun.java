@@ -36,12 +36,15 @@ final class ClusterRun {
   /**
    * Segments the files of {@code run} on the cluster of {@code sc}.
    *
+   * @param staging where the files live when tasks copy them ({@link StagedFile}); null for paths
+   *     mounted on every node
    * @param failOncePartition test hook of {@link PartitionWork}; -1 for none
    * @return one outcome per file, in run order
    */
   static List<FileOutcome> segment(
       JavaSparkContext sc,
       PreparedRun run,
+      Staging staging,
       int filesPerPartition,
       int failOncePartition,
       PrintWriter err) {
@@ -55,7 +58,7 @@ final class ClusterRun {
     try {
       JavaRDD<IndexedOutcome> work =
           sc.parallelize(files, partitions)
-              .mapPartitions(new PartitionWork(spec, failOncePartition), true);
+              .mapPartitions(new PartitionWork(spec, staging, failOncePartition), true);
       FileOutcome[] outcomes = new FileOutcome[files.size()];
       Gather gather = new Gather(outcomes, partitions, err);
       ClassTag<ArrayList<IndexedOutcome>> tag = ClassTag$.MODULE$.apply(ArrayList.class);
