@@ -5,6 +5,8 @@ import static io.github.cleave.spark.SparkFixtures.job;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import io.github.cleave.cli.BatchFixtures;
+import io.github.cleave.synth.SamplePhantoms;
+import io.github.cleave.synth.SampleWriter;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -68,6 +70,70 @@ class SparkStagedRunTest {
       assertThat(Files.readString(staged.resolve(name + ".record.json")))
           .contains("\"path\": \"file:" + in.resolve(name + ".tif") + "\"");
     }
+  }
+
+  @Test
+  void subfoldersAndSeedsThroughUrlsGiveTheOutputsOfPlainPaths(@TempDir Path tmp)
+      throws IOException {
+    Path tree = tmp.resolve("tree");
+    Path seeds = tmp.resolve("seeds");
+    Path scratch = Files.createDirectories(tmp.resolve("scratch"));
+    for (String dir : List.of("day1", "day2", ".hidden")) {
+      Files.createDirectories(tree.resolve(dir));
+    }
+    Files.createDirectories(seeds.resolve("day2"));
+    SampleWriter.write(SamplePhantoms.nuclei(3, SIZE, SIZE), scratch, "a");
+    SampleWriter.write(SamplePhantoms.nuclei(4, SIZE, SIZE), scratch, "b");
+    Files.copy(scratch.resolve("a.tif"), tree.resolve("day1/a.tif"));
+    Files.copy(scratch.resolve("b.tif"), tree.resolve("day1/b.tif"));
+    Files.copy(scratch.resolve("b.seeds.tif"), tree.resolve("day1/b.seeds.tif"));
+    Files.copy(scratch.resolve("a.tif"), tree.resolve("day2/a.tif"));
+    Files.copy(scratch.resolve("a.seeds.tif"), seeds.resolve("day2/a.seeds.tif"));
+    Files.copy(scratch.resolve("a.tif"), tree.resolve(".hidden/a.tif"));
+    Path plain = tmp.resolve("plain");
+    Path staged = tmp.resolve("staged");
+    SparkFixtures.Run b =
+        batch(
+            "--model",
+            model.toString(),
+            "--in",
+            tree.toString(),
+            "--out",
+            plain.toString(),
+            "--seeds",
+            seeds.toString(),
+            "--recursive",
+            "--threads",
+            "2");
+    SparkFixtures.Run s =
+        job(
+            sc,
+            "--model",
+            url(model),
+            "--in",
+            url(tree),
+            "--out",
+            url(staged),
+            "--seeds",
+            url(seeds),
+            "--recursive");
+    assertThat(b.exit()).as(b.err()).isEqualTo(0);
+    assertThat(s.exit()).as(s.err()).isEqualTo(0);
+    Map<String, String> renamed = new LinkedHashMap<>();
+    renamed.put(url(model), model.toString());
+    renamed.put(url(tree), tree.toString());
+    renamed.put("file:" + tree, tree.toString());
+    renamed.put(url(seeds), seeds.toString());
+    renamed.put("file:" + seeds, seeds.toString());
+    SparkFixtures.assertSameOutputs(plain, staged, renamed);
+    assertThat(SparkFixtures.files(staged))
+        .contains("day1/a.mask.tif", "day1/b.mask.tif", "day2/a.mask.tif")
+        .noneMatch(f -> f.contains("hidden"));
+    assertThat(Files.readString(staged.resolve("day1/a.record.json"))).doesNotContain("\"seeds\"");
+    assertThat(Files.readString(staged.resolve("day1/b.record.json")))
+        .contains("file:" + tree.resolve("day1/b.seeds.tif"));
+    assertThat(Files.readString(staged.resolve("day2/a.record.json")))
+        .contains("file:" + seeds.resolve("day2/a.seeds.tif"));
   }
 
   @Test

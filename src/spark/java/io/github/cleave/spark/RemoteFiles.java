@@ -38,11 +38,7 @@ final class RemoteFiles {
    */
   static FileSystem fileSystem(Path path, Configuration conf) throws IOException {
     FileSystem fs = path.getFileSystem(conf);
-    if (fs instanceof ChecksumFileSystem) {
-      fs.setWriteChecksum(false);
-      fs.setVerifyChecksum(false);
-    }
-    return fs;
+    return fs instanceof ChecksumFileSystem c ? c.getRawFileSystem() : fs;
   }
 
   /** Copies {@code remote} to {@code local}, replacing it; creates the local parent folders. */
