@@ -10,6 +10,7 @@ import io.github.cleave.synth.SampleWriter;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -65,6 +66,21 @@ class SparkStagedRunTest {
     }
     assertThat(s.err()).contains("cleave: spark: 8/8 files (4 failed), 3/3 partitions");
     SparkFixtures.assertSameOutputs(plain, staged, renamed(staged, plain));
+    // the rewriting of paths keeps every other byte: given the paths they hold, files are unchanged
+    Path copy = tmp.resolve("copy.json");
+    for (String name : good) {
+      Files.copy(plain.resolve(name + ".record.json"), copy, StandardCopyOption.REPLACE_EXISTING);
+      JsonPaths.record(copy, p -> p);
+      assertThat(Files.readAllBytes(copy))
+          .isEqualTo(Files.readAllBytes(plain.resolve(name + ".record.json")));
+    }
+    Files.copy(plain.resolve("run.json"), copy, StandardCopyOption.REPLACE_EXISTING);
+    JsonPaths.run(copy, model.toString(), in.toString(), plain.toString(), null);
+    assertThat(Files.readAllBytes(copy)).isEqualTo(Files.readAllBytes(plain.resolve("run.json")));
+    Files.copy(plain.resolve("run.started.json"), copy, StandardCopyOption.REPLACE_EXISTING);
+    JsonPaths.started(copy, model.toString());
+    assertThat(Files.readAllBytes(copy))
+        .isEqualTo(Files.readAllBytes(plain.resolve("run.started.json")));
     for (String name : good) {
       assertThat(staged.resolve(name + ".mask.tif")).isRegularFile();
       assertThat(Files.readString(staged.resolve(name + ".record.json")))

@@ -34,14 +34,14 @@ final class PartitionWork implements FlatMapFunction<Iterator<IndexedFile>, Inde
   private static final long serialVersionUID = 1L;
 
   private final Broadcast<RunSpec> spec;
-  private final Staging staging;
+  private final Broadcast<Staging> staging;
   private final int failOncePartition;
 
   /**
    * @param staging where the files live when they are copied to and from the executor ({@link
-   *     StagedFile}), or null when every node mounts them at the same path
+   *     StagedFile}), broadcast, or null when every node mounts them at the same path
    */
-  PartitionWork(Broadcast<RunSpec> spec, Staging staging, int failOncePartition) {
+  PartitionWork(Broadcast<RunSpec> spec, Broadcast<Staging> staging, int failOncePartition) {
     this.spec = spec;
     this.staging = staging;
     this.failOncePartition = failOncePartition;
@@ -55,15 +55,16 @@ final class PartitionWork implements FlatMapFunction<Iterator<IndexedFile>, Inde
       task = task.overwriting();
     }
     boolean injectFailure = tc.partitionId() == failOncePartition && tc.attemptNumber() == 0;
+    Staging where = staging == null ? null : staging.value();
     Path model = null;
     try {
       StagedFile staged = null;
-      if (staging != null) {
+      if (where != null) {
         model = Files.createTempFile("cleave-model-", ".json");
         Files.write(model, spec.value().modelJson());
-        staged = new StagedFile(staging, model);
+        staged = new StagedFile(where, model);
       }
-      boolean keep = !(staging != null && staging.overwrite()) && tc.attemptNumber() == 0;
+      boolean keep = !(where != null && where.overwrite()) && tc.attemptNumber() == 0;
       List<IndexedOutcome> out = new ArrayList<>();
       while (files.hasNext()) {
         IndexedFile f = files.next();
