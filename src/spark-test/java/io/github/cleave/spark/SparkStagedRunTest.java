@@ -66,18 +66,28 @@ class SparkStagedRunTest {
     }
     assertThat(s.err()).contains("cleave: spark: 8/8 files (4 failed), 3/3 partitions");
     SparkFixtures.assertSameOutputs(plain, staged, renamed(staged, plain));
-    // the rewriting of paths keeps every other byte: given the paths they hold, files are unchanged
+    // the rewriting of paths keeps every other byte: there and back gives the same file
     Path copy = tmp.resolve("copy.json");
+    String far = "hdfs://node:8020/a \"b\"<c>";
     for (String name : good) {
-      Files.copy(plain.resolve(name + ".record.json"), copy, StandardCopyOption.REPLACE_EXISTING);
-      JsonPaths.record(copy, p -> p);
-      assertThat(Files.readAllBytes(copy))
-          .isEqualTo(Files.readAllBytes(plain.resolve(name + ".record.json")));
+      Path record = plain.resolve(name + ".record.json");
+      Files.copy(record, copy, StandardCopyOption.REPLACE_EXISTING);
+      JsonPaths.record(copy, p -> far + p);
+      assertThat(Files.readString(copy))
+          .contains("hdfs://node:8020/a")
+          .isNotEqualTo(Files.readString(record));
+      JsonPaths.record(copy, p -> p.substring(far.length()));
+      assertThat(Files.readAllBytes(copy)).isEqualTo(Files.readAllBytes(record));
     }
     Files.copy(plain.resolve("run.json"), copy, StandardCopyOption.REPLACE_EXISTING);
+    JsonPaths.run(copy, far, far + 1, far + 2, null);
+    assertThat(Files.readString(copy))
+        .doesNotContain(in.toString(), plain.toString(), model.toString());
     JsonPaths.run(copy, model.toString(), in.toString(), plain.toString(), null);
     assertThat(Files.readAllBytes(copy)).isEqualTo(Files.readAllBytes(plain.resolve("run.json")));
     Files.copy(plain.resolve("run.started.json"), copy, StandardCopyOption.REPLACE_EXISTING);
+    JsonPaths.started(copy, far);
+    assertThat(Files.readString(copy)).doesNotContain(model.toString());
     JsonPaths.started(copy, model.toString());
     assertThat(Files.readAllBytes(copy))
         .isEqualTo(Files.readAllBytes(plain.resolve("run.started.json")));
@@ -208,6 +218,12 @@ class SparkStagedRunTest {
         job(sc, "--model", url(model), "--in", url(tmp.resolve("nothing")), "--out", url(other));
     assertThat(noInput.exit()).isEqualTo(2);
     assertThat(noInput.err()).contains("input folder", "does not exist");
+    Path empty = Files.createDirectories(tmp.resolve("empty"));
+    Files.writeString(empty.resolve("._a.tif"), "resource fork");
+    SparkFixtures.Run none =
+        job(sc, "--model", url(model), "--in", url(empty), "--out", url(other));
+    assertThat(none.exit()).isEqualTo(2);
+    assertThat(none.err()).contains("no file matching", "--recursive");
     assertThat(other.resolve("run.json")).doesNotExist();
   }
 

@@ -1,7 +1,6 @@
 package io.github.cleave.spark;
 
 import com.google.gson.Gson;
-import com.google.gson.GsonBuilder;
 import com.google.gson.JsonElement;
 import com.google.gson.JsonObject;
 import com.google.gson.JsonParser;
@@ -15,62 +14,69 @@ import java.util.function.UnaryOperator;
  * Replaces the local paths that a staged run's JSON files name (the copies on a worker's or the
  * driver's disk) by the paths of the files the user named ({@code hdfs://...}): in a file's record
  * the image, seeds and model paths; in {@code run.started.json} the model; in {@code run.json} the
- * model, input, output and seeds folders. Everything else keeps its bytes: the file is parsed as a
- * tree (member order and number text kept) and written in the format of the run's writers (pretty
- * printed, special floating point values allowed, a final newline).
+ * model, input, output and seeds folders. Every other byte stays: the file is parsed only to find
+ * the old values, and each {@code "KEY": "OLD"} member as the run's writers print it (pretty
+ * printed, JSON string escapes) is replaced in the text by {@code "KEY": "NEW"}.
  */
 final class JsonPaths {
-  private static final Gson GSON =
-      new GsonBuilder().setPrettyPrinting().serializeSpecialFloatingPointValues().create();
+  private static final Gson GSON = new Gson();
 
   private JsonPaths() {}
 
   /** A record: {@code input.image|seeds|model.path} through {@code remote}. */
   static void record(Path file, UnaryOperator<String> remote) throws IOException {
-    JsonObject o = read(file);
-    JsonObject in = o.getAsJsonObject("input");
+    String text = Files.readString(file, StandardCharsets.UTF_8);
+    JsonObject in = JsonParser.parseString(text).getAsJsonObject().getAsJsonObject("input");
     if (in != null) {
       for (String key : new String[] {"image", "seeds", "model"}) {
         JsonElement e = in.get(key);
         if (e != null && e.isJsonObject() && e.getAsJsonObject().has("path")) {
-          JsonObject entry = e.getAsJsonObject();
-          entry.addProperty("path", remote.apply(entry.get("path").getAsString()));
+          String old = e.getAsJsonObject().get("path").getAsString();
+          text = member(text, "path", old, remote.apply(old));
         }
       }
     }
-    write(file, o);
+    Files.writeString(file, text, StandardCharsets.UTF_8);
   }
 
   /** {@code run.started.json}: the model. */
   static void started(Path file, String model) throws IOException {
-    JsonObject o = read(file);
-    o.addProperty("model", model);
-    write(file, o);
+    String text = Files.readString(file, StandardCharsets.UTF_8);
+    JsonObject o = JsonParser.parseString(text).getAsJsonObject();
+    text = member(text, "model", string(o, "model"), model);
+    Files.writeString(file, text, StandardCharsets.UTF_8);
   }
 
   /** {@code run.json}: the model and the folders ({@code seeds} null if none). */
   static void run(Path file, String model, String in, String out, String seeds) throws IOException {
-    JsonObject o = read(file);
+    String text = Files.readString(file, StandardCharsets.UTF_8);
+    JsonObject o = JsonParser.parseString(text).getAsJsonObject();
     JsonObject m = o.getAsJsonObject("model");
     if (m != null) {
-      m.addProperty("path", model);
+      text = member(text, "path", string(m, "path"), model);
     }
     JsonObject s = o.getAsJsonObject("settings");
     if (s != null) {
-      s.addProperty("in", in);
-      s.addProperty("out", out);
+      text = member(text, "in", string(s, "in"), in);
+      text = member(text, "out", string(s, "out"), out);
       if (seeds != null) {
-        s.addProperty("seeds", seeds);
+        text = member(text, "seeds", string(s, "seeds"), seeds);
       }
     }
-    write(file, o);
+    Files.writeString(file, text, StandardCharsets.UTF_8);
   }
 
-  private static JsonObject read(Path file) throws IOException {
-    return JsonParser.parseString(Files.readString(file, StandardCharsets.UTF_8)).getAsJsonObject();
+  private static String string(JsonObject o, String key) {
+    JsonElement e = o.get(key);
+    return e == null || !e.isJsonPrimitive() ? null : e.getAsString();
   }
 
-  private static void write(Path file, JsonObject o) throws IOException {
-    Files.write(file, (GSON.toJson(o) + "\n").getBytes(StandardCharsets.UTF_8));
+  /** The text with the member {@code "key": old} (as printed) set to {@code now}. */
+  private static String member(String text, String key, String old, String now) {
+    if (old == null || old.equals(now)) {
+      return text;
+    }
+    return text.replace(
+        GSON.toJson(key) + ": " + GSON.toJson(old), GSON.toJson(key) + ": " + GSON.toJson(now));
   }
 }
