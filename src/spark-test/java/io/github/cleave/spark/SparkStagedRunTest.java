@@ -190,12 +190,15 @@ class SparkStagedRunTest {
   }
 
   @Test
-  void aFolderBatchBeganResumesThroughUrls(@TempDir Path tmp) throws IOException {
+  void aFolderBatchBeganResumesThroughAUrl(@TempDir Path tmp) throws IOException {
     Path out = tmp.resolve("out");
     assertThat(batch(plainArgs(out)).exit()).isEqualTo(3);
     byte[] record = Files.readAllBytes(out.resolve("img-02.record.json"));
-    SparkFixtures.Run again = job(sc, urlArgs(out));
+    // a plain path beside a URL is staged too, as a file: path
+    SparkFixtures.Run again =
+        job(sc, "--model", model.toString(), "--in", in.toString(), "--out", url(out));
     assertThat(again.exit()).as(again.err()).isEqualTo(3);
+    assertThat(again.err()).contains("staged through Hadoop's file system client");
     assertThat(again.out()).contains("4 kept from an earlier run");
     assertThat(Files.readAllBytes(out.resolve("img-02.record.json"))).isEqualTo(record);
   }

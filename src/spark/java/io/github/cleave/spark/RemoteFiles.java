@@ -41,6 +41,15 @@ final class RemoteFiles {
     return fs instanceof ChecksumFileSystem c ? c.getRawFileSystem() : fs;
   }
 
+  /**
+   * The {@code file:} path of a local path: absolute, normalised, without a trailing {@code /} (a
+   * {@link java.net.URI} of a folder has one, which would make it differ from the same folder as
+   * listed).
+   */
+  static Path fileUrl(java.nio.file.Path local) {
+    return new Path("file", null, local.toAbsolutePath().normalize().toString());
+  }
+
   /** Copies {@code remote} to {@code local}, replacing it; creates the local parent folders. */
   static void download(FileSystem fs, Path remote, java.nio.file.Path local) throws IOException {
     Files.createDirectories(local.toAbsolutePath().getParent());

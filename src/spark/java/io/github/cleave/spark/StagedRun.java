@@ -166,7 +166,7 @@ final class StagedRun {
 
   /** A plain path in a staged run: the same path on every node, as a {@code file:} URL. */
   private static Path plain(String text) {
-    return new Path(java.nio.file.Path.of(text).toAbsolutePath().normalize().toUri());
+    return RemoteFiles.fileUrl(java.nio.file.Path.of(text));
   }
 
   private static void checkFolders(
