@@ -6,7 +6,9 @@ import io.github.cleave.io.SegmentationFiles;
 import io.github.cleave.render.DisplayRange;
 import io.github.cleave.render.OverlayPicture;
 import io.github.cleave.segment.SegmentationModel;
+import java.nio.file.Path;
 import java.util.List;
+import java.util.function.Function;
 
 /**
  * The display ranges a run fixes for all its pictures, one per shown channel, so that thumbnails
@@ -21,9 +23,20 @@ final class DisplayRanges {
 
   /** The ranges, or null if no file qualifies (then each picture gets its own). */
   static DisplayRange[] first(List<InputScan.InputFile> files, SegmentationModel model) {
+    return first(files, model, InputScan.InputFile::path);
+  }
+
+  /**
+   * The ranges, reading each file from the local path {@code fetch} gives for it (a copy of a file
+   * kept elsewhere), or null if no file qualifies. A fetch that throws passes the file over.
+   */
+  static DisplayRange[] first(
+      List<InputScan.InputFile> files,
+      SegmentationModel model,
+      Function<InputScan.InputFile, Path> fetch) {
     for (InputScan.InputFile f : files) {
       try {
-        LoadedImage image = ImageFiles.read(f.path());
+        LoadedImage image = ImageFiles.read(fetch.apply(f));
         if (image.raster().channelCount() != model.imageChannels()) {
           continue;
         }

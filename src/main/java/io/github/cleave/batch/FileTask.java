@@ -1,6 +1,7 @@
 package io.github.cleave.batch;
 
 import io.github.cleave.segment.SegmentationModel;
+import java.nio.file.Path;
 import java.util.Objects;
 import java.util.concurrent.CancellationException;
 import java.util.function.BooleanSupplier;
@@ -49,6 +50,20 @@ public final class FileTask {
   /** The same function recomputing files whose outputs are complete instead of keeping them. */
   public FileTask overwriting() {
     return new FileTask(spec.overwriting(), model, budget, cancelled);
+  }
+
+  /**
+   * The same function, with the same parsed model and budget, on other paths: for a worker that
+   * copies a file and its seeds into local folders laid out as the run's, and its outputs back.
+   * Records written by the returned function name these paths.
+   *
+   * @param model a local file holding this run's model bytes ({@link RunSpec#modelJson()})
+   * @param in the local folder standing for the input folder
+   * @param out the local folder standing for the output folder
+   * @param seeds the local folder standing for the seeds folder, or null if the run has none
+   */
+  public FileTask at(Path model, Path in, Path out, Path seeds) {
+    return new FileTask(spec.at(model, in, out, seeds), this.model, budget, cancelled);
   }
 
   /**

@@ -3,18 +3,13 @@ package io.github.cleave.batch;
 import io.github.cleave.image.BadInputException;
 import io.github.cleave.io.SegmentationFiles;
 import java.io.IOException;
-import java.nio.file.FileSystems;
 import java.nio.file.FileVisitResult;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.PathMatcher;
 import java.nio.file.SimpleFileVisitor;
 import java.nio.file.attribute.BasicFileAttributes;
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.List;
-import java.util.Locale;
-import java.util.Map;
 
 /**
  * Finds the files of a folder run and checks the folders before anything is written.
@@ -89,15 +84,7 @@ final class InputScan {
       throw new BadInputException(
           "the seeds folder " + s.seeds() + " does not exist or is not a folder");
     }
-    String pattern = s.pattern();
-    PathMatcher matcher;
-    try {
-      matcher = FileSystems.getDefault().getPathMatcher("glob:" + pattern.toLowerCase(Locale.ROOT));
-    } catch (IllegalArgumentException e) {
-      throw new BadInputException(
-          "the pattern '" + pattern + "' is not a valid glob (" + e.getMessage() + "); try *.tif");
-    }
-    boolean byPath = pattern.contains("/");
+    InputNames names = InputNames.of(s.pattern());
     List<InputFile> files = new ArrayList<>();
     Files.walkFileTree(
         in,
@@ -109,25 +96,19 @@ final class InputScan {
             }
             boolean skip =
                 !s.recursive()
-                    || dir.getFileName().toString().startsWith(".")
+                    || !InputNames.searches(dir.getFileName().toString())
                     || dir.toAbsolutePath().normalize().equals(out);
             return skip ? FileVisitResult.SKIP_SUBTREE : FileVisitResult.CONTINUE;
           }
 
           @Override
           public FileVisitResult visitFile(Path file, BasicFileAttributes attrs) {
-            String name = file.getFileName().toString();
-            String lower = name.toLowerCase(Locale.ROOT);
-            if (!attrs.isRegularFile()
-                || lower.startsWith(".")
-                || lower.contains(".seeds.")
-                || lower.contains(".truth.")) {
+            if (!attrs.isRegularFile()) {
               return FileVisitResult.CONTINUE;
             }
             Path rel = in.relativize(file);
             String relative = rel.toString().replace(rel.getFileSystem().getSeparator(), "/");
-            Path test = byPath ? Path.of(relative.toLowerCase(Locale.ROOT)) : Path.of(lower);
-            if (matcher.matches(test)) {
+            if (names.takes(file.getFileName().toString(), relative)) {
               Path parent = rel.getParent();
               String folder =
                   parent == null
@@ -143,36 +124,10 @@ final class InputScan {
             return FileVisitResult.CONTINUE; // an unreadable entry is not an input
           }
         });
-    if (files.isEmpty()) {
-      throw new BadInputException(
-          "no file matching '"
-              + pattern
-              + "' in "
-              + s.in()
-              + (s.recursive() ? " or its subfolders" : " (add --recursive for subfolders)")
-              + "; hidden, NAME.seeds.* and NAME.truth.* files are not inputs");
-    }
     files.sort((a, b) -> a.relative().compareTo(b.relative()));
-    checkClashes(files);
+    List<String> relatives = new ArrayList<>(files.size());
+    files.forEach(f -> relatives.add(f.relative()));
+    names.check(relatives, s.in().toString(), s.recursive());
     return files;
-  }
-
-  /** Two inputs of one folder whose outputs would share names (compared ignoring case). */
-  private static void checkClashes(List<InputFile> files) {
-    Map<String, InputFile> seen = new HashMap<>();
-    for (InputFile f : files) {
-      String key = (f.folder() + "/" + f.baseName()).toLowerCase(Locale.ROOT);
-      InputFile other = seen.putIfAbsent(key, f);
-      if (other != null) {
-        throw new BadInputException(
-            "the inputs "
-                + other.relative()
-                + " and "
-                + f.relative()
-                + " would write outputs of the same names ("
-                + f.baseName()
-                + ".mask.tif, ...): rename one, move it to another folder, or narrow --pattern");
-      }
-    }
   }
 }

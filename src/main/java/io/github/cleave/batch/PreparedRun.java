@@ -16,6 +16,7 @@ import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.function.BooleanSupplier;
+import java.util.function.Function;
 
 /**
  * The driver side of a folder run, shared by the local {@link BatchRunner} and a distributed job:
@@ -37,6 +38,11 @@ import java.util.function.BooleanSupplier;
  * <p>The lock is held until {@link #close}. Not thread-safe; one run per instance.
  */
 public final class PreparedRun implements AutoCloseable {
+  /**
+   * How many files, the first in run order, the contact sheet shows (failures beyond are added).
+   */
+  public static final int SHEET_FILES = FolderOutputs.SHEET_FILES;
+
   private final BatchSettings settings;
   private final SegmentationModel model;
   private final String modelSha256;
@@ -74,11 +80,52 @@ public final class PreparedRun implements AutoCloseable {
    * @throws IOException if the output folder cannot be written
    */
   public static PreparedRun prepare(BatchSettings settings) throws IOException {
+    return prepare(settings, () -> InputScan.scan(settings), InputScan.InputFile::path);
+  }
+
+  /**
+   * Prepares a run whose inputs were listed elsewhere (a file system other than the local one, by
+   * the rules of {@link InputNames}), as {@link #prepare} does for a local folder; the model and
+   * output folder are local ({@code settings.out()} stands for the real output folder: the caller
+   * copies into it what it needs, such as {@code run.started.json}, and copies the run-level files
+   * out). Files are not read except to fix the display ranges, through {@code fetch}.
+   *
+   * @param settings {@code in} is a local folder standing for the input folder (it need not hold
+   *     the files)
+   * @param files the inputs' relative paths ({@code /} between folders), checked with {@link
+   *     InputNames#check} and sorted as strings
+   * @param fetch a local copy of the input at a relative path, called in run order until one can be
+   *     read with the model's channel count; throwing passes the file over
+   */
+  public static PreparedRun prepareListed(
+      BatchSettings settings, List<String> files, Function<String, Path> fetch) throws IOException {
+    for (int i = 1; i < files.size(); i++) {
+      if (files.get(i - 1).compareTo(files.get(i)) >= 0) {
+        throw new IllegalArgumentException(
+            "inputs " + files.get(i - 1) + ", " + files.get(i) + ": give them sorted, each once");
+      }
+    }
+    Path root = InputScan.root(settings);
+    List<InputScan.InputFile> inputs = new ArrayList<>(files.size());
+    for (String relative : files) {
+      inputs.add(InputScan.InputFile.of(root, relative));
+    }
+    return prepare(settings, () -> inputs, f -> fetch.apply(f.relative()));
+  }
+
+  /** Where a run's inputs come from. */
+  private interface Listing {
+    List<InputScan.InputFile> files() throws IOException;
+  }
+
+  private static PreparedRun prepare(
+      BatchSettings settings, Listing listing, Function<InputScan.InputFile, Path> local)
+      throws IOException {
     Instant started = Instant.now();
     SegmentationModel model = ModelFiles.read(settings.model());
     byte[] modelJson = Files.readAllBytes(settings.model());
     String modelSha = Checksums.sha256(settings.model());
-    List<InputScan.InputFile> files = InputScan.scan(settings);
+    List<InputScan.InputFile> files = listing.files();
     Path out = settings.out();
     Files.createDirectories(out);
     AutoCloseable lock = RunMarkers.lock(out);
@@ -104,7 +151,7 @@ public final class PreparedRun implements AutoCloseable {
                   && earlier.get().ranges() != null
                   && !settings.overwrite()
               ? earlier.get().ranges()
-              : DisplayRanges.first(files, model);
+              : DisplayRanges.first(files, model, local);
       RunJson.writeStarted(out, settings.model(), modelSha, ranges, started);
       return new PreparedRun(settings, model, modelSha, modelJson, files, ranges, started, lock);
     } catch (IOException | RuntimeException | Error e) {
@@ -137,6 +184,27 @@ public final class PreparedRun implements AutoCloseable {
   /** The serialisable values from which a worker opens the per-file function ({@link FileTask}). */
   public RunSpec spec() {
     return spec;
+  }
+
+  /**
+   * Whether a file name is that of a hidden temporary file a writer leaves while writing ({@code
+   * .NAME.HEX.part}, HEX of 1 to 16 lower-case hexadecimal digits): the files {@link
+   * #removeLeftoverParts} deletes. Copies to other file systems use such names too.
+   */
+  public static boolean isTemporaryName(String name) {
+    return RunMarkers.isPart(name);
+  }
+
+  /**
+   * The suffixes of the files a folder run may write for one input named {@code NAME} ({@code
+   * NAME.mask.tif}, ...), the record last: what a copy of an earlier run's outputs must bring for a
+   * resumed run to keep them.
+   */
+  public static List<String> outputSuffixes() {
+    List<String> all = new ArrayList<>(ResumeCheck.OUTPUTS);
+    all.add(".classes.tif");
+    all.add(".record.json");
+    return Collections.unmodifiableList(all);
   }
 
   /** The per-file function with the model already parsed (local runs). */

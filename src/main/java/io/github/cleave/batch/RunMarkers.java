@@ -112,11 +112,15 @@ final class RunMarkers {
     };
   }
 
+  static boolean isPart(String name) {
+    return PART.matcher(name).matches();
+  }
+
   /** Deletes the hidden temporary files an interrupted run left in {@code out} and below. */
   static int removeLeftoverParts(Path out) throws IOException {
     List<Path> parts = new ArrayList<>();
     try (Stream<Path> all = Files.walk(out)) {
-      all.filter(p -> PART.matcher(p.getFileName().toString()).matches())
+      all.filter(p -> isPart(p.getFileName().toString()))
           .filter(Files::isRegularFile)
           .forEach(parts::add);
     }

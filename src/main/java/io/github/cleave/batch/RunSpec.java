@@ -59,12 +59,17 @@ public final class RunSpec implements Serializable {
   }
 
   private RunSpec(RunSpec base, boolean overwrite) {
-    this.model = base.model;
+    this(base, overwrite, base.model, base.in, base.out, base.seeds);
+  }
+
+  private RunSpec(
+      RunSpec base, boolean overwrite, String model, String in, String out, String seeds) {
+    this.model = model;
     this.modelJson = base.modelJson;
     this.modelSha256 = base.modelSha256;
-    this.in = base.in;
-    this.out = base.out;
-    this.seeds = base.seeds;
+    this.in = in;
+    this.out = out;
+    this.seeds = seeds;
     this.overwrite = overwrite;
     this.timeAxis = base.timeAxis;
     this.seedFrame = base.seedFrame;
@@ -75,6 +80,25 @@ public final class RunSpec implements Serializable {
   /** The same run, recomputing files whose outputs are complete instead of keeping them. */
   RunSpec overwriting() {
     return overwrite ? this : new RunSpec(this, true);
+  }
+
+  /**
+   * The same run on other paths: a model file with this run's model bytes, and input, output and
+   * seeds folders laid out as this run's (seeds may be null).
+   */
+  RunSpec at(Path model, Path in, Path out, Path seeds) {
+    return new RunSpec(
+        this,
+        overwrite,
+        model.toString(),
+        in.toAbsolutePath().normalize().toString(),
+        out.toString(),
+        seeds == null ? null : seeds.toString());
+  }
+
+  /** The model's JSON bytes, as read on the driver (a copy). */
+  public byte[] modelJson() {
+    return modelJson.clone();
   }
 
   /** The settings a file of this run sees (one thread, the default heap budget). */

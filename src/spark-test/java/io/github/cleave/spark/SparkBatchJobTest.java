@@ -118,12 +118,12 @@ class SparkBatchJobTest {
   }
 
   @Test
-  void pathsWithAUrlSchemeAndBadPartitionSizesAreRefused(@TempDir Path tmp) {
+  void aSchemeWithoutAFileSystemAndBadPartitionSizesAreRefused(@TempDir Path tmp) {
     Path out = tmp.resolve("out");
-    SparkFixtures.Run hdfs =
-        job(sc, "--model", model.toString(), "--in", "hdfs://node/data", "--out", out.toString());
-    assertThat(hdfs.exit()).isEqualTo(2);
-    assertThat(hdfs.err()).contains("--in", "mounted at the same path on every node");
+    SparkFixtures.Run unknown =
+        job(sc, "--model", model.toString(), "--in", "nosuch://node/data", "--out", out.toString());
+    assertThat(unknown.exit()).as(unknown.err()).isEqualTo(2);
+    assertThat(unknown.err()).contains("--in nosuch://node/data", "file system client");
     SparkFixtures.Run zero = job(sc, args(out, "--files-per-partition", "0"));
     assertThat(zero.exit()).isEqualTo(2);
     assertThat(zero.err()).contains("--files-per-partition 0");
@@ -131,15 +131,18 @@ class SparkBatchJobTest {
   }
 
   @Test
-  void relativePathsAreRefusedOnAClusterOnly() {
-    MountedPaths.checkAbsolute("--in", Path.of("data"), "local[*]");
+  void relativePlainPathsAreRefusedOnAClusterOnly() {
+    JobPaths.checkAbsolute("--in", "data", "local[*]");
+    JobPaths.checkAbsolute("--in", "hdfs://node/data", "yarn");
     try {
-      MountedPaths.checkAbsolute("--in", Path.of("data"), "yarn");
+      JobPaths.checkAbsolute("--in", "data", "yarn");
       throw new AssertionError("a relative path on a cluster must be refused");
     } catch (io.github.cleave.image.BadInputException expected) {
       assertThat(expected.getMessage()).contains("--in data", "absolute path");
     }
-    MountedPaths.checkAbsolute("--in", Path.of("/data"), "spark://host:7077");
+    JobPaths.checkAbsolute("--in", "/data", "spark://host:7077");
+    assertThat(JobPaths.isUrl("C:\\data")).isFalse();
+    assertThat(JobPaths.isUrl("s3a://bucket/data")).isTrue();
   }
 
   private static String[] args(Path out, String... extra) {

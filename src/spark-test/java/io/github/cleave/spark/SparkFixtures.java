@@ -14,6 +14,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.stream.Stream;
 import org.apache.spark.SparkConf;
 import org.apache.spark.api.java.JavaSparkContext;
@@ -72,6 +73,14 @@ final class SparkFixtures {
    * files the times and the output folder.
    */
   static void assertSameOutputs(Path a, Path b) throws IOException {
+    assertSameOutputs(a, b, Map.of());
+  }
+
+  /**
+   * As {@link #assertSameOutputs(Path, Path)}, with each key of {@code renamed} replaced by its
+   * value in the JSON files of {@code b} first: the paths by which a staged run names its files.
+   */
+  static void assertSameOutputs(Path a, Path b, Map<String, String> renamed) throws IOException {
     assertThat(files(b)).isEqualTo(files(a));
     assertThat(BatchFixtures.hiddenFiles(b)).isEmpty();
     for (String name : files(a)) {
@@ -82,25 +91,32 @@ final class SparkFixtures {
             .as(name)
             .isEqualTo(BatchFixtures.withoutColumn(x, 3));
       } else if (name.endsWith(".record.json")) {
-        assertThat(json(y, "timingsMs")).as(name).isEqualTo(json(x, "timingsMs"));
+        assertThat(json(y, renamed, "timingsMs"))
+            .as(name)
+            .isEqualTo(json(x, Map.of(), "timingsMs"));
       } else if (name.equals("run.json") || name.equals("run.started.json")) {
-        assertThat(runJson(y)).as(name).isEqualTo(runJson(x));
+        assertThat(runJson(y, renamed)).as(name).isEqualTo(runJson(x, Map.of()));
       } else {
         assertThat(Files.readAllBytes(y)).as(name).isEqualTo(Files.readAllBytes(x));
       }
     }
   }
 
-  private static JsonObject json(Path file, String... drop) throws IOException {
-    JsonObject o = JsonParser.parseString(Files.readString(file)).getAsJsonObject();
+  private static JsonObject json(Path file, Map<String, String> renamed, String... drop)
+      throws IOException {
+    String text = Files.readString(file);
+    for (Map.Entry<String, String> r : renamed.entrySet()) {
+      text = text.replace(r.getKey(), r.getValue());
+    }
+    JsonObject o = JsonParser.parseString(text).getAsJsonObject();
     for (String key : drop) {
       o.remove(key);
     }
     return o;
   }
 
-  private static JsonObject runJson(Path file) throws IOException {
-    JsonObject o = json(file, "started", "finished");
+  private static JsonObject runJson(Path file, Map<String, String> renamed) throws IOException {
+    JsonObject o = json(file, renamed, "started", "finished");
     JsonObject settings = o.getAsJsonObject("settings");
     if (settings != null) {
       settings.remove("out");

@@ -6,6 +6,8 @@ import static org.assertj.core.api.Assertions.assertThat;
 import io.github.cleave.cli.BatchFixtures;
 import java.io.IOException;
 import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import java.util.concurrent.atomic.AtomicInteger;
 import org.apache.spark.Success$;
 import org.apache.spark.api.java.JavaSparkContext;
@@ -19,7 +21,8 @@ import org.junit.jupiter.api.io.TempDir;
 /**
  * A task that fails once, outside the per-file function, after it has written its first file, and
  * is retried ({@code local[2,2]}: two attempts per task): the run succeeds and leaves exactly the
- * outputs of a clean run, no duplicate, no partial or hidden temporary file.
+ * outputs of a clean run, no duplicate, no partial or hidden temporary file; with plain paths and
+ * with staged {@code file:} URLs.
  */
 class SparkRetryTest {
   static final int SIZE = 128;
@@ -63,6 +66,7 @@ class SparkRetryTest {
     SparkFixtures.Run c = job(sc, args(clean));
     assertThat(c.exit()).as(c.err()).isEqualTo(3);
     SparkFixtures.Run r;
+    int lostBefore = lostTasks.get();
     System.setProperty(SparkBatchJob.FAIL_ONCE_PROPERTY, "2");
     try {
       r = job(sc, args(retried));
@@ -71,12 +75,49 @@ class SparkRetryTest {
     }
     assertThat(r.exit()).as(r.err()).isEqualTo(3);
     // listener events arrive asynchronously: wait (without a time limit on the result) for them
-    for (int i = 0; i < 200 && lostTasks.get() == 0; i++) {
+    for (int i = 0; i < 200 && lostTasks.get() == lostBefore; i++) {
       Thread.sleep(50);
     }
-    assertThat(lostTasks.get()).as("the injected failure happened").isEqualTo(1);
+    assertThat(lostTasks.get() - lostBefore).as("the injected failure happened").isEqualTo(1);
     assertThat(r.out()).isEqualTo(c.out().replace(clean.toString(), retried.toString()));
     SparkFixtures.assertSameOutputs(clean, retried);
+  }
+
+  @Test
+  void aRetriedStagedTaskLeavesTheOutputsOfACleanRun(@TempDir Path tmp)
+      throws IOException, InterruptedException {
+    Path clean = tmp.resolve("clean");
+    Path retried = tmp.resolve("retried");
+    SparkFixtures.Run c = job(sc, args(clean));
+    assertThat(c.exit()).as(c.err()).isEqualTo(3);
+    SparkFixtures.Run r;
+    int lostBefore = lostTasks.get();
+    System.setProperty(SparkBatchJob.FAIL_ONCE_PROPERTY, "1");
+    try {
+      r =
+          job(
+              sc,
+              "--model",
+              model.toString(),
+              "--in",
+              "file://" + in,
+              "--out",
+              "file://" + retried,
+              "--files-per-partition",
+              "2");
+    } finally {
+      System.clearProperty(SparkBatchJob.FAIL_ONCE_PROPERTY);
+    }
+    assertThat(r.exit()).as(r.err()).isEqualTo(3);
+    for (int i = 0; i < 200 && lostTasks.get() == lostBefore; i++) {
+      Thread.sleep(50);
+    }
+    assertThat(lostTasks.get() - lostBefore).as("the injected failure happened").isEqualTo(1);
+    Map<String, String> renamed = new LinkedHashMap<>();
+    renamed.put("file://" + in, in.toString());
+    renamed.put("file:" + in, in.toString());
+    renamed.put("file://" + retried, clean.toString());
+    SparkFixtures.assertSameOutputs(clean, retried, renamed);
   }
 
   private static String[] args(Path out) {

@@ -21,9 +21,10 @@ import scala.runtime.BoxedUnit;
 /**
  * The distributed middle of a folder run, between {@link PreparedRun#prepare} and {@link
  * PreparedRun#finish} on the driver: broadcasts the run's values ({@link RunSpec}, with the model's
- * bytes) once, spreads the files in run order over partitions of {@code filesPerPartition}, runs
- * {@link PartitionWork} on each, and gathers the outcomes back into run order. Prints one line per
- * finished partition on the driver's standard error (files done and failed so far).
+ * bytes, and for a staged run its {@link Staging} with the Hadoop configuration) once, spreads the
+ * files in run order over partitions of {@code filesPerPartition}, runs {@link PartitionWork} on
+ * each, and gathers the outcomes back into run order. Prints one line per finished partition on the
+ * driver's standard error (files done and failed so far).
  */
 final class ClusterRun {
   private ClusterRun() {}
@@ -36,12 +37,15 @@ final class ClusterRun {
   /**
    * Segments the files of {@code run} on the cluster of {@code sc}.
    *
+   * @param staging where the files live when tasks copy them ({@link StagedFile}); null for paths
+   *     mounted on every node
    * @param failOncePartition test hook of {@link PartitionWork}; -1 for none
    * @return one outcome per file, in run order
    */
   static List<FileOutcome> segment(
       JavaSparkContext sc,
       PreparedRun run,
+      Staging staging,
       int filesPerPartition,
       int failOncePartition,
       PrintWriter err) {
@@ -52,10 +56,11 @@ final class ClusterRun {
     }
     int partitions = partitions(files.size(), filesPerPartition);
     Broadcast<RunSpec> spec = sc.broadcast(run.spec());
+    Broadcast<Staging> staged = staging == null ? null : sc.broadcast(staging);
     try {
       JavaRDD<IndexedOutcome> work =
           sc.parallelize(files, partitions)
-              .mapPartitions(new PartitionWork(spec, failOncePartition), true);
+              .mapPartitions(new PartitionWork(spec, staged, failOncePartition), true);
       FileOutcome[] outcomes = new FileOutcome[files.size()];
       Gather gather = new Gather(outcomes, partitions, err);
       ClassTag<ArrayList<IndexedOutcome>> tag = ClassTag$.MODULE$.apply(ArrayList.class);
@@ -68,6 +73,9 @@ final class ClusterRun {
       return Arrays.asList(outcomes);
     } finally {
       spec.destroy();
+      if (staged != null) {
+        staged.destroy();
+      }
     }
   }
 

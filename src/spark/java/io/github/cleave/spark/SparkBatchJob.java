@@ -31,8 +31,10 @@ import picocli.CommandLine.Spec;
  * ranges, {@code run.started.json}), then {@link ClusterRun} (the model's bytes broadcast once,
  * partitions of {@code --files-per-partition} files, per-file failures caught inside the tasks),
  * then {@link PreparedRun#finish} ({@code objects.csv}, {@code files.csv}, {@code
- * contact-sheet.png}, {@code run.json}). Paths must be on a file system mounted at the same path on
- * every node ({@link MountedPaths}).
+ * contact-sheet.png}, {@code run.json}). Plain paths must be on a file system mounted at the same
+ * path on every node; URLs ({@code hdfs://}, {@code s3a://}, {@code file:}) are reached through
+ * Hadoop's file system client, each file copied to the executor and its outputs back ({@link
+ * JobPaths}, {@link StagedRun}).
  *
  * <p>Exit codes as {@code batch}: 0 every file segmented, 2 bad arguments or unusable input
  * (nothing segmented), 3 some files failed; and 4 when Spark gave up on the job (a task failed
@@ -46,9 +48,11 @@ import picocli.CommandLine.Spec;
       "Applies a model saved by 'cleave learn' to every matching image of a folder on an Apache"
           + " Spark cluster (or embedded, with --master local[*]), writing exactly what 'cleave"
           + " batch' writes.",
-      "Paths must be plain paths on a file system mounted at the same path on every node (NFS,"
-          + " Lustre, GPFS); on a cluster, absolute. Run it with spark-submit, or with java -cp"
-          + " and the JVM flags Spark needs on Java 17 (see the README).",
+      "Paths are plain paths on a file system mounted at the same path on every node (NFS,"
+          + " Lustre, GPFS; on a cluster, absolute), or URLs of any file system Hadoop's client"
+          + " reaches (hdfs://, s3a://, file:), whose files are copied to the executors and back."
+          + " Run it with spark-submit, or with java -cp and the JVM flags Spark needs on Java 17"
+          + " (see the README).",
       "Exit codes: 0 every file segmented; 2 bad arguments or unusable folder, model or pattern;"
           + " 3 some files failed (see files.csv); 4 Spark gave up on the job (a rerun resumes)."
     })
@@ -119,7 +123,23 @@ public final class SparkBatchJob implements Callable<Integer> {
     BatchSettings settings = batch.settings(1);
     SparkConf conf = shared == null ? conf() : null;
     String masterUrl = shared != null ? shared.master() : conf.get("spark.master");
-    checkPaths(settings, masterUrl);
+    JobPaths paths = JobPaths.of(spec.commandLine().getParseResult());
+    paths.checkAbsolute(masterUrl);
+    int failOnce = Integer.getInteger(FAIL_ONCE_PROPERTY, -1);
+    if (paths.staged()) {
+      JavaSparkContext sc = shared != null ? shared : start(conf);
+      try {
+        if (shared == null) {
+          sc.setLogLevel("WARN");
+        }
+        return StagedRun.run(
+            sc, settings, paths, filesPerPartition, failOnce, spec.commandLine().getOut(), err);
+      } finally {
+        if (shared == null) {
+          sc.stop();
+        }
+      }
+    }
     try (PreparedRun run = PreparedRun.prepare(settings)) {
       int partitions = ClusterRun.partitions(run.files().size(), filesPerPartition);
       err.println(
@@ -143,28 +163,45 @@ public final class SparkBatchJob implements Callable<Integer> {
         if (shared == null) {
           sc.setLogLevel("WARN");
         }
-        outcomes =
-            ClusterRun.segment(
-                sc, run, filesPerPartition, Integer.getInteger(FAIL_ONCE_PROPERTY, -1), err);
-      } catch (Exception e) {
-        if (!(e instanceof SparkException)) {
-          throw e;
-        }
-        String why = String.valueOf(e.getMessage()).lines().findFirst().orElse("");
-        err.println(
-            "cleave: the Spark job failed: "
-                + why
-                + " (see the log above); complete outputs stay, a rerun resumes");
-        err.flush();
-        return JOB_FAILED;
+        outcomes = distribute(sc, run, null, filesPerPartition, failOnce, err);
       } finally {
         if (shared == null) {
           sc.stop();
         }
       }
+      if (outcomes == null) {
+        return JOB_FAILED;
+      }
       run.removeLeftoverParts();
       BatchResult result = run.finish(outcomes, workers);
       return BatchReport.print(result, settings.out(), spec.commandLine().getOut(), err);
+    }
+  }
+
+  /**
+   * The tasks of a prepared run ({@link ClusterRun#segment}); null, with a line on {@code err},
+   * when Spark gave up on the job.
+   */
+  static List<FileOutcome> distribute(
+      JavaSparkContext sc,
+      PreparedRun run,
+      Staging staging,
+      int filesPerPartition,
+      int failOncePartition,
+      PrintWriter err) {
+    try {
+      return ClusterRun.segment(sc, run, staging, filesPerPartition, failOncePartition, err);
+    } catch (Exception e) {
+      if (!(e instanceof SparkException)) {
+        throw e;
+      }
+      String why = String.valueOf(e.getMessage()).lines().findFirst().orElse("");
+      err.println(
+          "cleave: the Spark job failed: "
+              + why
+              + " (see the log above); complete outputs stay, a rerun resumes");
+      err.flush();
+      return null;
     }
   }
 
@@ -200,16 +237,5 @@ public final class SparkBatchJob implements Callable<Integer> {
               + e
               + ")");
     }
-  }
-
-  private static void checkPaths(BatchSettings s, String masterUrl) {
-    MountedPaths.checkPlain("--model", s.model());
-    MountedPaths.checkPlain("--in", s.in());
-    MountedPaths.checkPlain("--out", s.out());
-    MountedPaths.checkPlain("--seeds", s.seeds());
-    MountedPaths.checkAbsolute("--model", s.model(), masterUrl);
-    MountedPaths.checkAbsolute("--in", s.in(), masterUrl);
-    MountedPaths.checkAbsolute("--out", s.out(), masterUrl);
-    MountedPaths.checkAbsolute("--seeds", s.seeds(), masterUrl);
   }
 }

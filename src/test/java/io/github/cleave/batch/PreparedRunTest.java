@@ -111,6 +111,64 @@ class PreparedRunTest {
     }
   }
 
+  @Test
+  void aListedRunFetchesInputsOnlyForTheRangesAndItsTaskRunsOnCopies(@TempDir Path tmp)
+      throws Exception {
+    Path scanned = tmp.resolve("scanned");
+    List<String> files;
+    String startedRanges;
+    try (PreparedRun run = PreparedRun.prepare(settings(scanned, false))) {
+      files = run.files();
+      startedRanges = ranges(scanned.resolve("run.started.json"));
+    }
+    Path mirrorIn = Files.createDirectories(tmp.resolve("mirror-in"));
+    Path listed = tmp.resolve("listed");
+    BatchSettings s = new BatchSettings(model, mirrorIn, listed, null, 1, null, false, false, 0);
+    assertThatThrownBy(() -> PreparedRun.prepareListed(s, List.of("b.tif", "a.tif"), in::resolve))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessageContaining("sorted");
+    List<String> fetched = new ArrayList<>();
+    try (PreparedRun run =
+        PreparedRun.prepareListed(
+            s,
+            files,
+            rel -> {
+              fetched.add(rel);
+              return in.resolve(rel);
+            })) {
+      assertThat(run.files()).isEqualTo(files);
+      // run order: colour (wrong channels), corrupt, empty, then the first usable image
+      assertThat(fetched).containsExactly("colour.tif", "corrupt.tif", "empty.tif", "img-00.tif");
+      assertThat(ranges(listed.resolve("run.started.json"))).isEqualTo(startedRanges);
+      // the task on a copy of one input laid out as the run's gives the scanned run's outputs
+      Path copyIn = Files.createDirectories(tmp.resolve("copy-in"));
+      Path copyOut = tmp.resolve("copy-out");
+      Path copyModel = Files.write(tmp.resolve("copy-model.json"), run.spec().modelJson());
+      Files.copy(in.resolve("img-01.tif"), copyIn.resolve("img-01.tif"));
+      FileTask task =
+          FileTask.open(run.spec(), MemoryBudget.of(0), () -> false)
+              .at(copyModel, copyIn, copyOut, null);
+      assertThat(task.run("img-01.tif").failed()).isFalse();
+      try (PreparedRun plain = PreparedRun.prepare(settings(tmp.resolve("plain"), false))) {
+        FileTask.open(plain.spec(), MemoryBudget.of(0), () -> false).run("img-01.tif");
+      }
+      for (String suffix : List.of(".mask.tif", ".labels.tif", ".objects.csv", ".overlay.png")) {
+        assertThat(Files.readAllBytes(copyOut.resolve("img-01" + suffix)))
+            .as(suffix)
+            .isEqualTo(Files.readAllBytes(tmp.resolve("plain").resolve("img-01" + suffix)));
+      }
+      assertThat(Files.readString(copyOut.resolve("img-01.record.json")))
+          .contains(copyIn.resolve("img-01.tif").toString(), copyModel.toString());
+    }
+  }
+
+  private static String ranges(Path started) throws IOException {
+    return com.google.gson.JsonParser.parseString(Files.readString(started))
+        .getAsJsonObject()
+        .get("displayRanges")
+        .toString();
+  }
+
   private static BatchSettings settings(Path out, boolean overwrite) {
     return new BatchSettings(model, in, out, null, 1, null, false, overwrite, 0);
   }

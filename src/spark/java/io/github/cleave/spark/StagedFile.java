@@ -1,0 +1,193 @@
+package io.github.cleave.spark;
+
+import io.github.cleave.batch.FileOutcome;
+import io.github.cleave.batch.FileTask;
+import io.github.cleave.batch.PreparedRun;
+import io.github.cleave.io.SeedFiles;
+import io.github.cleave.io.SegmentationFiles;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.CancellationException;
+import java.util.stream.Stream;
+import org.apache.hadoop.conf.Configuration;
+import org.apache.hadoop.fs.FileSystem;
+import org.apache.hadoop.fs.Path;
+
+/**
+ * One file of a staged run, on an executor: copies the input (and its {@code NAME.seeds.*} files
+ * beside it and in the seeds folder) into a fresh local folder laid out as the run's; when resuming
+ * and the file's record exists remotely, copies its earlier outputs too; runs the run's {@link
+ * FileTask} on the local folders; copies the outputs it wrote back ({@link RemoteFiles#upload}, the
+ * record last, its paths naming the remote files), or, for a failed file, deletes its remote
+ * record; and deletes the local folder, whatever happened. Any failure, copies included, becomes
+ * the file's failed outcome; only cancellation propagates. Local space: one input and its outputs
+ * per running task.
+ */
+final class StagedFile {
+  private final Staging staging;
+  private final Configuration conf;
+  private final java.nio.file.Path model;
+
+  /**
+   * @param model a local file holding the run's model bytes
+   */
+  StagedFile(Staging staging, java.nio.file.Path model) {
+    this.staging = staging;
+    this.conf = staging.conf().get();
+    this.model = model;
+  }
+
+  /**
+   * Processes one file.
+   *
+   * @param keepComplete whether complete outputs of an earlier run may be kept (not overwriting,
+   *     not a retried attempt)
+   */
+  FileOutcome run(FileTask task, String relative, boolean keepComplete) {
+    long start = System.nanoTime();
+    java.nio.file.Path local = null;
+    try {
+      local = Files.createTempDirectory("cleave-stage-");
+      java.nio.file.Path in = local.resolve("in");
+      java.nio.file.Path out = local.resolve("out");
+      java.nio.file.Path seeds = staging.seeds() == null ? null : local.resolve("seeds");
+      Files.createDirectories(out);
+      if (seeds != null) {
+        Files.createDirectories(seeds);
+      }
+      int slash = relative.lastIndexOf('/');
+      String folder = slash < 0 ? "" : relative.substring(0, slash);
+      String base = baseName(relative.substring(slash + 1));
+      Path remoteIn = staging.inPath();
+      FileSystem inFs = RemoteFiles.fileSystem(remoteIn, conf);
+      RemoteFiles.download(inFs, Staging.below(remoteIn, relative), in.resolve(relative));
+      Files.createDirectories(in.resolve(folder));
+      for (String suffix : SeedFiles.SUFFIXES) {
+        String seedFile = prefix(folder) + base + suffix;
+        RemoteFiles.downloadIfFile(inFs, Staging.below(remoteIn, seedFile), in.resolve(seedFile));
+        if (seeds != null) {
+          Path remoteSeeds = staging.seedsPath();
+          RemoteFiles.downloadIfFile(
+              RemoteFiles.fileSystem(remoteSeeds, conf),
+              Staging.below(remoteSeeds, seedFile),
+              seeds.resolve(seedFile));
+        }
+      }
+      Path remoteOut = staging.outPath();
+      FileSystem outFs = RemoteFiles.fileSystem(remoteOut, conf);
+      Path outDir = Staging.below(remoteOut, folder);
+      String record = base + ".record.json";
+      if (keepComplete && outFs.exists(new Path(outDir, record))) {
+        for (String suffix : PreparedRun.outputSuffixes()) {
+          RemoteFiles.downloadIfFile(
+              outFs, new Path(outDir, base + suffix), out.resolve(prefix(folder) + base + suffix));
+        }
+      }
+      FileOutcome o = task.at(model, in, out, seeds).run(relative);
+      if (o.reused()) {
+        return o;
+      }
+      if (o.failed()) {
+        outFs.delete(new Path(outDir, record), false);
+      }
+      java.nio.file.Path localRecord = out.resolve(prefix(folder) + record);
+      for (java.nio.file.Path p : files(out)) {
+        if (!p.equals(localRecord)) {
+          RemoteFiles.upload(outFs, p, Staging.below(remoteOut, slashed(out.relativize(p))));
+        }
+      }
+      if (!o.failed() && Files.isRegularFile(localRecord)) {
+        java.nio.file.Path localIn = in;
+        java.nio.file.Path localSeeds = seeds;
+        JsonPaths.record(localRecord, p -> remote(p, localIn, localSeeds));
+        RemoteFiles.upload(outFs, localRecord, new Path(outDir, record));
+      }
+      return withRemoteNames(o, in, seeds);
+    } catch (CancellationException e) {
+      throw e;
+    } catch (IOException | RuntimeException e) {
+      try {
+        Path outDir = Staging.below(staging.outPath(), folderOf(relative));
+        RemoteFiles.fileSystem(outDir, conf)
+            .delete(new Path(outDir, baseName(nameOf(relative)) + ".record.json"), false);
+      } catch (IOException | RuntimeException suppressed) {
+        // its outputs may be incomplete; a record naming them stays only if it cannot be deleted
+      }
+      double ms = (System.nanoTime() - start) / 1e6;
+      String why = String.valueOf(e.getMessage()).replace('\n', ' ').strip();
+      return new FileOutcome(
+          relative,
+          FileOutcome.Status.FAILED,
+          "cannot copy it to or from the worker: " + why,
+          -1,
+          ms,
+          false);
+    } finally {
+      if (local != null) {
+        RemoteFiles.deleteLocalTree(local);
+      }
+    }
+  }
+
+  /** The path the user would know for a local copy's path. */
+  private String remote(String path, java.nio.file.Path in, java.nio.file.Path seeds) {
+    java.nio.file.Path p = java.nio.file.Path.of(path);
+    if (p.startsWith(in)) {
+      return Staging.below(staging.inPath(), slashed(in.relativize(p))).toString();
+    }
+    if (seeds != null && p.startsWith(seeds)) {
+      return Staging.below(staging.seedsPath(), slashed(seeds.relativize(p))).toString();
+    }
+    if (p.equals(model)) {
+      return staging.model();
+    }
+    return path;
+  }
+
+  /** A failed file's message with the local folders named by their remote paths. */
+  private FileOutcome withRemoteNames(
+      FileOutcome o, java.nio.file.Path in, java.nio.file.Path seeds) {
+    String m = o.message().replace(in.toString(), staging.in());
+    if (seeds != null) {
+      m = m.replace(seeds.toString(), staging.seeds());
+    }
+    return m.equals(o.message())
+        ? o
+        : new FileOutcome(o.file(), o.status(), m, o.objectCount(), o.timeMs(), o.reused());
+  }
+
+  private static List<java.nio.file.Path> files(java.nio.file.Path dir) throws IOException {
+    List<java.nio.file.Path> all = new ArrayList<>();
+    try (Stream<java.nio.file.Path> s = Files.walk(dir)) {
+      s.filter(Files::isRegularFile)
+          .filter(p -> !PreparedRun.isTemporaryName(p.getFileName().toString()))
+          .sorted()
+          .forEach(all::add);
+    }
+    return all;
+  }
+
+  private static String slashed(java.nio.file.Path relative) {
+    return relative.toString().replace(relative.getFileSystem().getSeparator(), "/");
+  }
+
+  private static String prefix(String folder) {
+    return folder.isEmpty() ? "" : folder + "/";
+  }
+
+  private static String folderOf(String relative) {
+    int slash = relative.lastIndexOf('/');
+    return slash < 0 ? "" : relative.substring(0, slash);
+  }
+
+  private static String nameOf(String relative) {
+    return relative.substring(relative.lastIndexOf('/') + 1);
+  }
+
+  /** The output name of an input file name: the part before the last dot (as the run's). */
+  private static String baseName(String name) {
+    return SegmentationFiles.baseName(java.nio.file.Path.of(name));
+  }
+}
