@@ -74,17 +74,7 @@ public record SegmentationModel(
    * marked as refined.
    */
   public SegmentationModel withLikelihood(LikelihoodModel refined) {
-    return new SegmentationModel(
-        refined,
-        settings,
-        contrastScale,
-        flatten,
-        lightBackground,
-        imageChannels,
-        pixelKind,
-        voxelSize,
-        softwareVersion,
-        true);
+    return with(refined, true);
   }
 
   /**
@@ -102,8 +92,12 @@ public record SegmentationModel(
    * bleaching).
    */
   public SegmentationModel relearnedOnEachImage() {
+    return with(likelihood, false);
+  }
+
+  private SegmentationModel with(LikelihoodModel model, boolean refined) {
     return new SegmentationModel(
-        likelihood,
+        model,
         settings,
         contrastScale,
         flatten,
@@ -112,6 +106,6 @@ public record SegmentationModel(
         pixelKind,
         voxelSize,
         softwareVersion,
-        false);
+        refined);
   }
 }
