@@ -122,9 +122,10 @@ public final class PreparedRun implements AutoCloseable {
       BatchSettings settings, Listing listing, Function<InputScan.InputFile, Path> local)
       throws IOException {
     Instant started = Instant.now();
-    SegmentationModel model = ModelFiles.read(settings.model());
-    byte[] modelJson = Files.readAllBytes(settings.model());
-    String modelSha = Checksums.sha256(settings.model());
+    // one read: the model sent to the workers and its checksum are those of the same bytes
+    byte[] modelJson = ModelFiles.bytes(settings.model());
+    SegmentationModel model = ModelFiles.parse(modelJson, settings.model().toString());
+    String modelSha = Checksums.sha256(modelJson);
     List<InputScan.InputFile> files = listing.files();
     Path out = settings.out();
     Files.createDirectories(out);

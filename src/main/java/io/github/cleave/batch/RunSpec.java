@@ -4,10 +4,7 @@ import io.github.cleave.io.ModelFiles;
 import io.github.cleave.io.TimeAxis;
 import io.github.cleave.render.DisplayRange;
 import io.github.cleave.segment.SegmentationModel;
-import java.io.IOException;
 import java.io.Serializable;
-import java.io.UncheckedIOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 
 /**
@@ -139,21 +136,9 @@ public final class RunSpec implements Serializable {
 
   /**
    * Parses the model from the bytes this value carries (not from the model path, which may not be
-   * readable yet where this runs): through a private temporary file, since model files are read
-   * from files only.
+   * readable where this runs).
    */
   SegmentationModel parseModel() {
-    try {
-      Path tmp = Files.createTempFile("cleave-model-", ".json");
-      try {
-        Files.write(tmp, modelJson);
-        return ModelFiles.read(tmp);
-      } finally {
-        Files.deleteIfExists(tmp);
-      }
-    } catch (IOException e) {
-      throw new UncheckedIOException(
-          "cannot parse the model of " + model + " in a temporary file: " + e.getMessage(), e);
-    }
+    return ModelFiles.parse(modelJson, model);
   }
 }

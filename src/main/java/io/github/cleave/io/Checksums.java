@@ -24,6 +24,11 @@ public final class Checksums {
     return HexFormat.of().formatHex(digest.digest());
   }
 
+  /** The SHA-256 of {@code bytes}: the same as that of a file holding them. */
+  public static String sha256(byte[] bytes) {
+    return HexFormat.of().formatHex(newDigest().digest(bytes));
+  }
+
   private static MessageDigest newDigest() {
     try {
       return MessageDigest.getInstance("SHA-256");

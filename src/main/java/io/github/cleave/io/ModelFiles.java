@@ -17,7 +17,9 @@ import io.github.cleave.objects.ObjectSplit;
 import io.github.cleave.segment.IlluminationMode;
 import io.github.cleave.segment.SegmentationModel;
 import io.github.cleave.segment.SegmentationSettings;
+import java.io.ByteArrayInputStream;
 import java.io.IOException;
+import java.io.InputStreamReader;
 import java.io.Reader;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -52,11 +54,34 @@ public final class ModelFiles {
    * @throws BadInputException if the file is missing, not JSON, of a newer format, or damaged
    */
   public static SegmentationModel read(Path file) {
-    JsonElement root;
-    try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
-      root = JsonParser.parseReader(r);
+    return parse(bytes(file), file.toString());
+  }
+
+  /**
+   * The bytes of a model file, for checksums and for sending the model to other machines.
+   *
+   * @throws BadInputException if the file is missing or cannot be read
+   */
+  public static byte[] bytes(Path file) {
+    try {
+      return Files.readAllBytes(file);
     } catch (NoSuchFileException e) {
       throw new BadInputException("model file " + file + " does not exist");
+    } catch (IOException e) {
+      throw new BadInputException(
+          "model file " + file + " cannot be read (" + e.getMessage() + ")", e);
+    }
+  }
+
+  /**
+   * A model from the bytes of a model file; {@code file} names it in messages.
+   *
+   * @throws BadInputException if the bytes are not JSON, of a newer format, or damaged
+   */
+  public static SegmentationModel parse(byte[] json, String file) {
+    JsonElement root;
+    try (Reader r = new InputStreamReader(new ByteArrayInputStream(json), StandardCharsets.UTF_8)) {
+      root = JsonParser.parseReader(r);
     } catch (IOException | JsonParseException e) {
       throw new BadInputException(
           "model file " + file + " is not readable JSON (" + e.getMessage() + ")", e);

@@ -52,11 +52,23 @@ class StagedFileTest {
       assertThat(BatchFixtures.hiddenFiles(out)).isEmpty();
       FileOutcome again = staged.run(task, "img-00.tif", true);
       assertThat(again.reused()).isTrue();
+      // recomputed (a retried attempt): a class map of an earlier run with more classes goes
+      Files.writeString(out.resolve("img-00.classes.tif"), "an earlier run's class map");
+      FileOutcome redone = staged.run(task, "img-00.tif", false);
+      assertThat(redone.failed()).as(redone.message()).isFalse();
+      assertThat(redone.reused()).isFalse();
+      assertThat(out.resolve("img-00.classes.tif")).doesNotExist();
+      assertThat(out.resolve("img-00.record.json")).exists();
       Files.writeString(out.resolve("gone.record.json"), "{}\n");
       FileOutcome gone = staged.run(task, "gone.tif", true);
       assertThat(gone.failed()).isTrue();
-      assertThat(gone.message()).startsWith("cannot copy it to or from the worker");
-      assertThat(out.resolve("gone.record.json")).doesNotExist();
+      assertThat(gone.message())
+          .startsWith("cannot copy it between")
+          .contains("gone.tif does not exist")
+          .endsWith("then run again to resume");
+      // nothing was uploaded, so an earlier run's record is left as it was (it is deleted only
+      // right before new outputs go up)
+      assertThat(out.resolve("gone.record.json")).exists();
     }
   }
 }

@@ -60,7 +60,7 @@ final class PartitionWork implements FlatMapFunction<Iterator<IndexedFile>, Inde
     try {
       StagedFile staged = null;
       if (where != null) {
-        model = Files.createTempFile("cleave-model-", ".json");
+        model = Files.createTempFile(Scratch.folder(), "cleave-model-", ".json");
         Files.write(model, spec.value().modelJson());
         staged = new StagedFile(where, model);
       }

@@ -216,6 +216,11 @@ public final class SparkBatchJob implements Callable<Integer> {
           "no Spark master: run the job with spark-submit, or give --master local[*] to run it"
               + " embedded");
     }
+    if (conf.getBoolean("spark.speculation", false)) {
+      throw new BadInputException(
+          "spark.speculation is on: two attempts of one task would write the same files at once;"
+              + " run the job with --conf spark.speculation=false");
+    }
     if (conf.get("spark.master").startsWith("local")) {
       conf.setIfMissing("spark.ui.enabled", "false");
       conf.setIfMissing("spark.driver.host", "localhost");

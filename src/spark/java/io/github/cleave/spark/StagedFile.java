@@ -6,6 +6,7 @@ import io.github.cleave.batch.PreparedRun;
 import io.github.cleave.io.SeedFiles;
 import io.github.cleave.io.SegmentationFiles;
 import java.io.IOException;
+import java.io.InterruptedIOException;
 import java.nio.file.Files;
 import java.util.ArrayList;
 import java.util.List;
@@ -49,7 +50,7 @@ final class StagedFile {
     long start = System.nanoTime();
     java.nio.file.Path local = null;
     try {
-      local = Files.createTempDirectory("cleave-stage-");
+      local = Files.createTempDirectory(Scratch.folder(), "cleave-stage-");
       java.nio.file.Path in = local.resolve("in");
       java.nio.file.Path out = local.resolve("out");
       java.nio.file.Path seeds = staging.seeds() == null ? null : local.resolve("seeds");
@@ -89,8 +90,11 @@ final class StagedFile {
       if (o.reused()) {
         return o;
       }
-      if (o.failed()) {
-        outFs.delete(new Path(outDir, record), false);
+      // as the local writer does: no old record may vouch for outputs being replaced, and a class
+      // map of an earlier run with more classes must not stay beside the new outputs
+      outFs.delete(new Path(outDir, record), false);
+      if (!Files.exists(out.resolve(prefix(folder) + base + ".classes.tif"))) {
+        outFs.delete(new Path(outDir, base + ".classes.tif"), false);
       }
       java.nio.file.Path localRecord = out.resolve(prefix(folder) + record);
       for (java.nio.file.Path p : files(out)) {
@@ -108,22 +112,28 @@ final class StagedFile {
     } catch (CancellationException e) {
       throw e;
     } catch (IOException | RuntimeException e) {
-      try {
-        Path outDir = Staging.below(staging.outPath(), folderOf(relative));
-        RemoteFiles.fileSystem(outDir, conf)
-            .delete(new Path(outDir, baseName(nameOf(relative)) + ".record.json"), false);
-      } catch (IOException | RuntimeException suppressed) {
-        // its outputs may be incomplete; a record naming them stays only if it cannot be deleted
+      if (e instanceof InterruptedIOException || Thread.currentThread().isInterrupted()) {
+        // a killed attempt (the job aborted, a duplicate attempt): not a fault of the file, and
+        // the remote record, deleted only right before an upload, stays valid for a resume
+        throw new CancellationException("interrupted while staging " + relative);
       }
       double ms = (System.nanoTime() - start) / 1e6;
       String why = String.valueOf(e.getMessage()).replace('\n', ' ').strip();
-      return new FileOutcome(
-          relative,
-          FileOutcome.Status.FAILED,
-          "cannot copy it to or from the worker: " + why,
-          -1,
-          ms,
-          false);
+      if (local != null) {
+        why = why.replace(local.toString(), "<executor's copy>");
+      }
+      String message =
+          e instanceof IOException
+              ? "cannot copy it between "
+                  + staging.inPath()
+                  + " / "
+                  + staging.outPath()
+                  + " and the executor's disk ("
+                  + why
+                  + "): check that the executors can read --in and --seeds and write --out, then"
+                  + " run again to resume"
+              : "unexpected error while staging it: " + e;
+      return new FileOutcome(relative, FileOutcome.Status.FAILED, message, -1, ms, false);
     } finally {
       if (local != null) {
         RemoteFiles.deleteLocalTree(local);
@@ -175,15 +185,6 @@ final class StagedFile {
 
   private static String prefix(String folder) {
     return folder.isEmpty() ? "" : folder + "/";
-  }
-
-  private static String folderOf(String relative) {
-    int slash = relative.lastIndexOf('/');
-    return slash < 0 ? "" : relative.substring(0, slash);
-  }
-
-  private static String nameOf(String relative) {
-    return relative.substring(relative.lastIndexOf('/') + 1);
   }
 
   /** The output name of an input file name: the part before the last dot (as the run's). */

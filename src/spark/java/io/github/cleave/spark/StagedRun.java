@@ -73,8 +73,6 @@ final class StagedRun {
       try {
         RemoteFiles.downloadIfFile(
             outFs, new Path(out, "run.started.json"), mirror.resolve("run.started.json"));
-        RemoteFiles.removeParts(outFs, out);
-        outFs.delete(new Path(out, "run.json"), false);
         BatchSettings local =
             new BatchSettings(
                 model,
@@ -91,6 +89,9 @@ final class StagedRun {
                 s.seedsFromNeighbour());
         try (PreparedRun run =
             PreparedRun.prepareListed(local, files, rel -> fetch(inFs, in, rel, mirrorIn))) {
+          // only now, with the folder's earlier run checked (another model's is refused above)
+          RemoteFiles.removeParts(outFs, out);
+          outFs.delete(new Path(out, "run.json"), false);
           JsonPaths.started(mirror.resolve("run.started.json"), modelName);
           RemoteFiles.upload(
               outFs, mirror.resolve("run.started.json"), new Path(out, "run.started.json"));
@@ -287,7 +288,11 @@ final class StagedRun {
               : List.of(".objects.csv");
       for (String suffix : suffixes) {
         String name = folder + base + suffix;
-        RemoteFiles.download(fs, new Path(out, name), mirror.resolve(name));
+        if (suffix.equals(".overlay.png")) { // a missing picture leaves its tile out, as locally
+          RemoteFiles.downloadIfFile(fs, new Path(out, name), mirror.resolve(name));
+        } else {
+          RemoteFiles.download(fs, new Path(out, name), mirror.resolve(name));
+        }
       }
     }
   }
