@@ -1,7 +1,6 @@
 package io.github.cleave.imagej;
 
 import io.github.cleave.energy.AlphaExpansion;
-import io.github.cleave.energy.ContrastScale;
 import io.github.cleave.energy.EnergyParameters;
 import io.github.cleave.energy.PottsEnergy;
 import io.github.cleave.flow.Neighborhood;
@@ -36,7 +35,7 @@ final class LiveClasses {
   private final Raster features;
   private final Neighborhood neighborhood;
   private float[][] costs; // costs[c - 1][p] = D_p(c) of the model in use
-  private double sigma = Double.NaN; // the estimate, made once
+  private final ContrastScaleOnce sigma;
   private PottsEnergy kept; // the last energy, whose boundary weights later updates reuse
   private EnergyParameters keptParameters; // the parameters it was built with
 
@@ -60,6 +59,7 @@ final class LiveClasses {
   LiveClasses(Raster features, Neighborhood neighborhood) {
     this.features = features;
     this.neighborhood = neighborhood;
+    this.sigma = new ContrastScaleOnce(features, neighborhood);
   }
 
   /** Takes the K-class likelihoods of {@code learned} (K ≥ 2) for the regional term. */
@@ -87,13 +87,7 @@ final class LiveClasses {
     if (costs == null) {
       throw new IllegalStateException("no likelihood model yet: call useModel first");
     }
-    double s = contrastScale;
-    if (Double.isNaN(s)) {
-      if (Double.isNaN(sigma)) {
-        sigma = ContrastScale.estimate(features, neighborhood);
-      }
-      s = sigma;
-    }
+    double s = sigma.resolve(contrastScale);
     long start = System.nanoTime();
     EnergyParameters p = new EnergyParameters(lambda, s, neighborhood, features.voxelSize());
     // the boundary weights depend on the parameters only: kept while they stay

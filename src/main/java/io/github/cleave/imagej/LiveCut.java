@@ -1,6 +1,5 @@
 package io.github.cleave.imagej;
 
-import io.github.cleave.energy.ContrastScale;
 import io.github.cleave.energy.CutProblem;
 import io.github.cleave.energy.EnergyParameters;
 import io.github.cleave.flow.MaxFlowResult;
@@ -47,7 +46,7 @@ final class LiveCut {
   private LikelihoodModel model;
   private float[] foregroundCost;
   private float[] backgroundCost;
-  private double sigma = Double.NaN; // the estimate, made once
+  private final ContrastScaleOnce sigma;
   private CutProblem cut;
   private double builtLambda = Double.NaN;
   private double builtSigma = Double.NaN;
@@ -76,6 +75,7 @@ final class LiveCut {
   LiveCut(Raster features, Neighborhood neighborhood) {
     this.features = features;
     this.neighborhood = neighborhood;
+    this.sigma = new ContrastScaleOnce(features, neighborhood);
     this.n = features.size();
   }
 
@@ -116,13 +116,7 @@ final class LiveCut {
     if (model == null) {
       throw new IllegalStateException("no likelihood model yet: call useModel first");
     }
-    double s = contrastScale;
-    if (Double.isNaN(s)) {
-      if (Double.isNaN(sigma)) {
-        sigma = ContrastScale.estimate(features, neighborhood);
-      }
-      s = sigma;
-    }
+    double s = sigma.resolve(contrastScale);
     SeedLabels labels =
         new SeedLabels(
             features.width(), features.height(), features.depth(), twoClass(seeds.labels()));
@@ -151,7 +145,7 @@ final class LiveCut {
    * re-solve) rather than build or solve from zero flow.
    */
   boolean wouldContinue(double lambda, double contrastScale) {
-    double s = Double.isNaN(contrastScale) ? sigma : contrastScale;
+    double s = sigma.known(contrastScale);
     return cut != null && !stale && lambda == builtLambda && s == builtSigma;
   }
 
