@@ -23,11 +23,11 @@ import java.util.Arrays;
  *       weights).
  * </ul>
  *
- * <p>The solver is filled row by row, every arc of a voxel together ({@code
- * GridMaxFlow.setRowNeighborCapacities}), so its arrays are written once, in order; each pair is
- * evaluated once, its value kept until the row of its other end ({@link ArcRows}). O(n · K / 2)
+ * <p>The solver is filled row by row, one direction of each opposite pair at a time: the row's pair
+ * values are computed into one buffer and stored for both arcs at once ({@code
+ * GridMaxFlow.setSymmetricRowCapacities}), while the two rows they touch are in cache. O(n · K / 2)
  * table look-ups for n voxels and K neighbours, plus the tables (a few thousand exponentials,
- * shared by directions of equal weight) and the buffers of {@link ArcRows}.
+ * shared by directions of equal weight) and one buffer of a row.
  */
 final class BoundaryArcs {
   /** Whole numbers up to this magnitude are exact in float, int and double alike. */
@@ -36,8 +36,9 @@ final class BoundaryArcs {
   private BoundaryArcs() {}
 
   /**
-   * Sets every neighbour arc of {@code solver} and returns the largest sum of the capacities of the
-   * arcs leaving one voxel.
+   * Sets every neighbour arc of {@code solver} (a new one: arcs leaving the grid are left as they
+   * are) and returns an upper bound of the sum of the capacities of the arcs leaving one voxel
+   * ({@link PairCapacities#largestSum()}).
    */
   static int set(GridMaxFlow solver, Raster features, EnergyParameters parameters) {
     return set(solver, features, parameters, features.size() / 4);
@@ -49,26 +50,28 @@ final class BoundaryArcs {
    * from costing more than they save; tests vary it to reach every path).
    */
   static int set(GridMaxFlow solver, Raster features, EnergyParameters parameters, int budget) {
-    int directions = parameters.neighborhood().size();
-    ArcRows rows =
-        new ArcRows(
-            new PairCapacities(features, parameters, budget), features, parameters.neighborhood());
-    int[] row = new int[features.width() * directions];
-    int largest = 0;
-    for (int z = 0; z < features.depth(); z++) {
-      for (int y = 0; y < features.height(); y++) {
-        rows.fill(y, z, row);
-        for (int a = 0; a < row.length; a += directions) {
-          int sum = 0;
-          for (int k = 0; k < directions; k++) {
-            sum += row[a + k];
+    PairCapacities pairs = new PairCapacities(features, parameters, budget);
+    Neighborhood nb = parameters.neighborhood();
+    int width = features.width();
+    int height = features.height();
+    int depth = features.depth();
+    int[] line = new int[width];
+    for (int z = 0; z < depth; z++) {
+      for (int y = 0; y < height; y++) {
+        int first = width * (y + height * z);
+        for (int k = 0; k < nb.size(); k += 2) { // one direction of each opposite pair
+          int qy = y + nb.dy(k);
+          int qz = z + nb.dz(k);
+          int x0 = Math.max(0, -nb.dx(k));
+          int x1 = Math.min(width, width - nb.dx(k));
+          if (qy >= 0 && qy < height && qz >= 0 && qz < depth && x0 < x1) {
+            pairs.line(k, first + x0, first + x1, line, 0);
+            solver.setSymmetricRowCapacities(y, z, k, x0, x1 - x0, line);
           }
-          largest = Math.max(largest, sum);
         }
-        solver.setRowNeighborCapacities(y, z, row);
       }
     }
-    return largest;
+    return pairs.largestSum();
   }
 
   /**
@@ -137,24 +140,24 @@ final class BoundaryArcs {
     }
 
     /**
-     * {@code out[i] = between(p, k)} for p from {@code from} to {@code to} ({@code i = p − from}),
-     * every neighbour inside the grid.
+     * {@code out[at + p − from] = between(p, k)} for p from {@code from} to {@code to}, every
+     * neighbour inside the grid.
      */
-    void line(int k, int from, int to, int[] out) {
+    void line(int k, int from, int to, int[] out, int at) {
       int step = steps[k];
       Object table = tables[k];
       if (table instanceof int[] differences) {
-        greyLine(grey, differences, from, to, step, out);
+        greyLine(grey, differences, from, to, step, out, at - from);
       } else if (table instanceof ExponentialSteps s) {
         for (int p = from; p < to; p++) {
           double sq = ContrastScale.squaredDifference(channels, p, p + step);
-          out[p - from] = s.capacity(sq * inverseTwoSigmaSquared);
+          out[p - from + at] = s.capacity(sq * inverseTwoSigmaSquared);
         }
       } else {
         double scale = scales[k];
         for (int p = from; p < to; p++) {
           double sq = ContrastScale.squaredDifference(channels, p, p + step);
-          out[p - from] = capacity(scale, sq * inverseTwoSigmaSquared);
+          out[p - from + at] = capacity(scale, sq * inverseTwoSigmaSquared);
         }
       }
     }
@@ -162,6 +165,19 @@ final class BoundaryArcs {
     /** Index offset of the neighbour in direction k. */
     int step(int k) {
       return steps[k];
+    }
+
+    /**
+     * {@code Σ_k capacity(scale_k, 0)} over every direction: the capacities of a voxel whose
+     * neighbours all equal it, which bounds the sum of the capacities of the arcs leaving any voxel
+     * from above (a capacity never rises with the difference).
+     */
+    int largestSum() {
+      int sum = 0;
+      for (double scale : scales) {
+        sum += capacity(scale, 0);
+      }
+      return sum;
     }
   }
 
@@ -175,14 +191,15 @@ final class BoundaryArcs {
   }
 
   /**
-   * {@code out[p − from] = table[|v[p] − v[p + step]|]} (0 beyond the table) for p in [from, to),
+   * {@code out[p + shift] = table[|v[p] − v[p + step]|]} (0 beyond the table) for p in [from, to),
    * on whole-number values.
    */
-  private static void greyLine(float[] v, int[] table, int from, int to, int step, int[] out) {
+  private static void greyLine(
+      float[] v, int[] table, int from, int to, int step, int[] out, int shift) {
     int length = table.length;
     for (int p = from; p < to; p++) {
       int diff = Math.abs((int) v[p] - (int) v[p + step]);
-      out[p - from] = diff < length ? table[diff] : 0;
+      out[p + shift] = diff < length ? table[diff] : 0;
     }
   }
 

@@ -16,13 +16,15 @@ import java.util.Locale;
  * Terminal arcs carry the regional term: {@code source → p} the cost of calling {@code p}
  * background ({@code D_p(bg)}), {@code p → sink} the cost of calling it foreground ({@code
  * D_p(fg)}); a cut pays the arc of the class it does not choose. A foreground seed gets {@code
- * source → p = K} and {@code p → sink = 0}, a background seed the reverse, with {@code K = 1 +
- * max_p Σ_q B_pq}: moving a seed across the cut would always cost more than any boundary it could
- * save, so seeds are never cut off (Boykov and Jolly, ICCV 2001, doi:10.1109/ICCV.2001.937505).
- * Neighbour arcs in both directions carry {@code B_pq = λ · w_k · exp(−‖I_p − I_q‖² / 2σ²)} with
- * the Cauchy–Crofton weight {@code w_k} (which already contains {@code 1/|e_k|}; not divided by the
- * distance again). All values are converted to integers by {@link CapacityScale}, so the flow value
- * equals the minimum energy in capacity units exactly, seeds contributing nothing.
+ * source → p = K} and {@code p → sink = 0}, a background seed the reverse, with {@code K = 1 + Σ_k
+ * λ · w_k} in capacity units (the boundary weights of a voxel among equal neighbours, at least
+ * {@code max_p Σ_q B_pq}): moving a seed across the cut would always cost more than any boundary it
+ * could save, so seeds are never cut off (Boykov and Jolly, ICCV 2001,
+ * doi:10.1109/ICCV.2001.937505). Neighbour arcs in both directions carry {@code B_pq = λ · w_k ·
+ * exp(−‖I_p − I_q‖² / 2σ²)} with the Cauchy–Crofton weight {@code w_k} (which already contains
+ * {@code 1/|e_k|}; not divided by the distance again). All values are converted to integers by
+ * {@link CapacityScale}, so the flow value equals the minimum energy in capacity units exactly,
+ * seeds contributing nothing.
  *
  * <h2>Cost</h2>
  *

@@ -223,8 +223,8 @@ public final class PottsEnergy {
   }
 
   /**
-   * A capacity that no cut can save by moving a single voxel across it: {@code 1 + max_p Σ_q B_pq},
-   * as {@link CutProblem#hardCapacity()}.
+   * A capacity that no cut can save by moving a single voxel across it: {@code 1 + Σ_k λ · w_k} in
+   * capacity units, at least {@code 1 + max_p Σ_q B_pq}, as {@link CutProblem#hardCapacity()}.
    */
   int hardCapacity() {
     return hardCapacity;

@@ -6,7 +6,7 @@ import io.github.cleave.image.Raster;
 /**
  * The boundary weights {@code B_pq} of every neighbour pair of a grid, kept for many cuts over the
  * same image: one int per pair, the very capacities that {@link CutProblem} puts on its neighbour
- * arcs (computed by {@link ArcRows} from {@link BoundaryArcs.PairCapacities}, row by row).
+ * arcs (computed by {@link BoundaryArcs.PairCapacities}, row by row).
  *
  * <p>Layout: {@code weight[h][p]} is {@code B} between voxel {@code p} and its neighbour in
  * direction {@code k = 2h} ({@code p + step[2h]}), 0 where that neighbour lies outside the grid;
@@ -25,7 +25,7 @@ final class PottsPairs {
   final int directions; // K
   final int[] step; // step[k]: index offset of the neighbour in direction k
   final int[][] weight; // weight[h][p] = B(p, p + step[2h]) >= 0; 0 where outside the grid
-  final int largestSum; // max over voxels p of the sum of B_pq over its neighbours q
+  final int largestSum; // >= the sum of B_pq over the neighbours q of any voxel p
 
   private PottsPairs(Raster features, EnergyParameters parameters) {
     this.width = features.width();
@@ -46,30 +46,26 @@ final class PottsPairs {
     return new PottsPairs(features, parameters);
   }
 
-  /** Fills {@link #weight} row by row; returns the largest sum of weights around one voxel. */
+  /**
+   * Fills {@link #weight} row by row; returns an upper bound of the sum of the weights around one
+   * voxel ({@link BoundaryArcs.PairCapacities#largestSum()}).
+   */
   private int fill(Raster features, EnergyParameters parameters) {
-    ArcRows rows =
-        new ArcRows(new BoundaryArcs.PairCapacities(features, parameters), features, neighborhood);
-    int[] row = new int[width * directions];
-    int largest = 0;
-    for (int z = 0; z < depth; z++) {
-      for (int y = 0; y < height; y++) {
-        rows.fill(y, z, row);
-        int first = width * (y + height * z);
-        for (int x = 0; x < width; x++) {
-          int a = x * directions;
-          int sum = 0;
-          for (int k = 0; k < directions; k++) {
-            sum += row[a + k];
-          }
-          largest = Math.max(largest, sum);
-          for (int h = 0; h < weight.length; h++) {
-            weight[h][first + x] = row[a + 2 * h];
+    BoundaryArcs.PairCapacities pairs = new BoundaryArcs.PairCapacities(features, parameters);
+    for (int h = 0; h < weight.length; h++) {
+      int k = 2 * h;
+      int x0 = firstX(k);
+      int x1 = endX(k);
+      for (int z = 0; z < depth; z++) {
+        for (int y = 0; y < height; y++) {
+          if (rowInside(k, y, z) && x0 < x1) {
+            int first = width * (y + height * z);
+            pairs.line(k, first + x0, first + x1, weight[h], first + x0);
           }
         }
       }
     }
-    return largest;
+    return pairs.largestSum();
   }
 
   /** First x whose neighbour in direction k has an x inside the grid. */

@@ -583,6 +583,85 @@ public final class GridMaxFlow implements MaxFlowSolver {
   }
 
   /**
+   * Sets both arcs between each node of row (y, z) and its neighbour in direction {@code k}: for x
+   * from {@code x0} to {@code x0 + count − 1}, {@code caps[x − x0]} becomes the capacity of the arc
+   * from (x, y, z) in direction {@code k} and of its reverse. The whole row range must have its
+   * neighbours inside the grid. A symmetric boundary term is built this way row by row, one
+   * direction of each opposite pair at a time, while the rows it touches are in cache. Only before
+   * the first solve. O(count).
+   *
+   * @throws IllegalArgumentException if the row range or a neighbour lies outside the grid, {@code
+   *     caps} is shorter than {@code count}, or a capacity is negative or above {@code
+   *     Integer.MAX_VALUE / 2} (an arc and its reverse must fit the int range)
+   */
+  public void setSymmetricRowCapacities(int y, int z, int k, int x0, int count, int[] caps) {
+    layout.checkDirection(k);
+    GridLayout g = layout;
+    Neighborhood nb = g.neighborhood;
+    int x1 = x0 + count;
+    if (count < 0
+        || caps.length < count
+        || x0 < 0
+        || x1 > g.width
+        || (count > 0
+            && !(inside(x0, y, z)
+                && inside(x0 + nb.dx(k), y + nb.dy(k), z + nb.dz(k))
+                && inside(x1 - 1 + nb.dx(k), y + nb.dy(k), z + nb.dz(k))))) {
+      throw new IllegalArgumentException(
+          String.format(
+              Locale.ROOT,
+              "pairs of x %d to %d in row (y %d, z %d) along direction %d: not all inside a %d x %d"
+                  + " x %d grid, or fewer than %d values (%d)",
+              x0,
+              x1 - 1,
+              y,
+              z,
+              k,
+              g.width,
+              g.height,
+              g.depth,
+              count,
+              caps.length));
+    }
+    checkNotSolved();
+    int bits = 0; // the union of all bits: negative if any value is, else >= every value
+    for (int i = 0; i < count; i++) {
+      bits |= caps[i];
+    }
+    if (bits < 0 || bits > Integer.MAX_VALUE / 2) {
+      for (int i = 0; i < count; i++) {
+        if (caps[i] < 0 || caps[i] > Integer.MAX_VALUE / 2) {
+          throw new IllegalArgumentException(
+              String.format(
+                  Locale.ROOT,
+                  "capacity %d of the arcs between (x %d, y %d, z %d) and its neighbour in"
+                      + " direction %d must be between 0 and %d",
+                  caps[i],
+                  x0 + i,
+                  y,
+                  z,
+                  k,
+                  Integer.MAX_VALUE / 2));
+        }
+      }
+    }
+    if (capacity == null) {
+      fitResiduals(bits);
+    }
+    int a = g.padded(x0, y, z) * directions + k;
+    int backward = offset[k] * directions + (k ^ 1) - k; // from arc (p, k) to (p + offset, k ^ 1)
+    if (capacity != null) {
+      for (int i = 0; i < count; i++, a += directions) {
+        capacity[a] = caps[i];
+        capacity[a + backward] = caps[i];
+      }
+    } else {
+      search.residual.setPairs(a, directions, backward, caps, count);
+    }
+    generation++;
+  }
+
+  /**
    * Sets every neighbour arc leaving the listed nodes at once: {@code caps[i * K + k]} is the
    * capacity of the arc from {@code nodes[i]} in direction {@code k}, for {@code i < count}. Arcs
    * of other nodes keep their capacities (zero on a new solver), so a graph over part of the grid

@@ -36,6 +36,12 @@ abstract sealed class Residuals permits Residuals.Narrow, Residuals.Wide {
   /** Copies {@code length} values of {@code source} from {@code from} to {@code to}. */
   abstract void copyFrom(int[] source, int from, int to, int length);
 
+  /**
+   * Stores {@code values[i]} at {@code a + i * stride} and at {@code a + i * stride + other}, for i
+   * below {@code count}: both arcs of a run of symmetric pairs. Each value must fit.
+   */
+  abstract void setPairs(int a, int stride, int other, int[] values, int count);
+
   /** A 32-bit copy. */
   abstract Wide widened();
 
@@ -81,6 +87,16 @@ abstract sealed class Residuals permits Residuals.Narrow, Residuals.Wide {
     void copyFrom(int[] source, int from, int to, int length) {
       for (int i = 0; i < length; i++) {
         values[to + i] = (char) source[from + i];
+      }
+    }
+
+    @Override
+    void setPairs(int a, int stride, int other, int[] source, int count) {
+      char[] v = values;
+      for (int i = 0; i < count; i++, a += stride) {
+        char c = (char) source[i];
+        v[a] = c;
+        v[a + other] = c;
       }
     }
 
@@ -135,6 +151,16 @@ abstract sealed class Residuals permits Residuals.Narrow, Residuals.Wide {
     @Override
     void copyFrom(int[] source, int from, int to, int length) {
       System.arraycopy(source, from, values, to, length);
+    }
+
+    @Override
+    void setPairs(int a, int stride, int other, int[] source, int count) {
+      int[] v = values;
+      for (int i = 0; i < count; i++, a += stride) {
+        int c = source[i];
+        v[a] = c;
+        v[a + other] = c;
+      }
     }
 
     @Override

@@ -56,7 +56,9 @@ class CutProblemCapacityTest {
       double lambda = random.nextInt(8) == 0 ? 0 : random.nextDouble() * 30;
       EnergyParameters parameters = new EnergyParameters(lambda, sigma, nb, size);
       int[] reference = referenceCapacities(image, parameters);
-      int hard = referenceHard(reference, image.size(), nb.size());
+      int hard = hardCapacity(parameters);
+      // K must exceed the boundary around any voxel (Boykov and Jolly, ICCV 2001)
+      assertThat(hard).isGreaterThan(largestSum(reference, image.size(), nb.size()));
       for (int budget : new int[] {0, 50, image.size() / 4, Integer.MAX_VALUE}) {
         GridMaxFlow solver = new GridMaxFlow(w, h, d, nb, true);
         int largest = BoundaryArcs.set(solver, image, parameters, budget);
@@ -189,7 +191,21 @@ class CutProblemCapacityTest {
     return sigma > 0 ? sigma : Double.MIN_NORMAL;
   }
 
-  private static int referenceHard(int[] caps, int n, int directions) {
+  /**
+   * {@code 1 + Σ_k λ · w_k} in capacity units, each weight rounded as the formula rounds it: the
+   * boundary around a voxel whose neighbours all equal it.
+   */
+  private static int hardCapacity(EnergyParameters parameters) {
+    int hard = 1;
+    for (double w : parameters.lengthWeights()) {
+      hard +=
+          BoundaryArcs.capacity(parameters.boundaryPenalty() * w * CapacityScale.UNITS_PER_NAT, 0);
+    }
+    return hard;
+  }
+
+  /** The largest sum of the capacities of the arcs leaving one voxel. */
+  private static int largestSum(int[] caps, int n, int directions) {
     int largest = 0;
     for (int p = 0; p < n; p++) {
       int sum = 0;
@@ -198,7 +214,7 @@ class CutProblemCapacityTest {
       }
       largest = Math.max(largest, sum);
     }
-    return largest + 1;
+    return largest;
   }
 
   /** The straightforward computation: one exponential per unordered pair, interleaved result. */

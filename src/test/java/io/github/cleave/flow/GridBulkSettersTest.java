@@ -114,6 +114,67 @@ class GridBulkSettersTest {
   }
 
   @Test
+  void symmetricRowSetterEqualsArcByArc() {
+    SplittableRandom random = new SplittableRandom(17L);
+    for (int trial = 0; trial < 120; trial++) {
+      Neighborhood nb = ALL[trial % ALL.length];
+      int w = 1 + random.nextInt(12);
+      int h = 1 + random.nextInt(12);
+      int d = nb.isThreeDimensional() ? 1 + random.nextInt(5) : 1;
+      int n = w * h * d;
+      GridMaxFlow bulk = new GridMaxFlow(w, h, d, nb, random.nextBoolean()); // both storages
+      GridMaxFlow single = new GridMaxFlow(w, h, d, nb, true);
+      boolean wide = trial % 5 == 0; // values beyond the 16-bit residuals in some rows
+      int[] line = new int[w];
+      for (int z = 0; z < d; z++) {
+        for (int y = 0; y < h; y++) {
+          for (int k = random.nextInt(2); k < nb.size(); k += 2) { // either direction of a pair
+            int qy = y + nb.dy(k);
+            int qz = z + nb.dz(k);
+            int x0 = Math.max(0, -nb.dx(k));
+            int x1 = Math.min(w, w - nb.dx(k));
+            if (qy < 0 || qy >= h || qz < 0 || qz >= d || x0 >= x1) {
+              continue;
+            }
+            int from = x0 + random.nextInt(x1 - x0); // any run inside the row
+            int count = random.nextInt(x1 - from + 1);
+            for (int i = 0; i < count; i++) {
+              int c =
+                  wide && random.nextInt(7) == 0 ? 40000 + random.nextInt(9) : random.nextInt(40);
+              line[i] = c;
+              int p = from + i + w * (y + h * z);
+              single.setNeighborCapacity(p, k, c);
+              single.setNeighborCapacity(single.neighbor(p, k), k ^ 1, c);
+            }
+            bulk.setSymmetricRowCapacities(y, z, k, from, count, line);
+          }
+        }
+      }
+      terminals(random, n, bulk, single);
+      assertSameNetworkAndCut(bulk, single, n, nb);
+    }
+  }
+
+  @Test
+  void symmetricRowSetterRefusesPairsOutsideTheGridAndOversizedValues() {
+    GridMaxFlow solver = new GridMaxFlow(3, 3, 1, Neighborhood.N4, false);
+    int[] line = new int[3];
+    assertThatThrownBy(() -> solver.setSymmetricRowCapacities(2, 0, 2, 0, 3, line))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessageContaining("not all inside");
+    assertThatThrownBy(() -> solver.setSymmetricRowCapacities(0, 0, 0, 0, 3, line))
+        .hasMessageContaining("not all inside");
+    assertThatThrownBy(() -> solver.setSymmetricRowCapacities(0, 0, 0, 0, 4, line))
+        .hasMessageContaining("not all inside");
+    line[1] = Integer.MAX_VALUE / 2 + 1;
+    assertThatThrownBy(() -> solver.setSymmetricRowCapacities(0, 0, 0, 0, 2, line))
+        .hasMessageContaining("must be between 0 and");
+    line[1] = -1;
+    assertThatThrownBy(() -> solver.setSymmetricRowCapacities(0, 0, 0, 0, 2, line))
+        .hasMessageContaining("must be between 0 and");
+  }
+
+  @Test
   void listedTerminalSetterEqualsNodeByNode() {
     SplittableRandom random = new SplittableRandom(13L);
     for (int trial = 0; trial < 120; trial++) {
