@@ -95,7 +95,8 @@ final class EdgeRefinement {
 
   /**
    * The cut with its edges re-decided. The flow of the returned outcome is that of the edge cut
-   * alone (the boundary between fixed voxels outside the band is not counted).
+   * alone (the boundary between fixed voxels outside the band is not counted); its build time
+   * includes finding the band and its levels.
    *
    * @param features the driving channels, as cut
    * @param mask the cut, 255 foreground, 0 background
@@ -109,6 +110,7 @@ final class EdgeRefinement {
       SeedLabels seeds,
       EnergyParameters parameters,
       boolean perPlane) {
+    long start = System.nanoTime();
     int w = features.width();
     int h = features.height();
     int d = features.depth();
@@ -192,10 +194,13 @@ final class EdgeRefinement {
       }
     }
     SeedLabels constraints = new SeedLabels(w, h, d, hard);
+    double bandMs = Segmenter.millisSince(start);
     PlaneCuts.Cutter cutter = (f, c, fixed) -> cutFree(f, c, fixed, parameters);
-    return planes
-        ? PlaneCuts.cutEachPlane(features, costs, constraints, cutter)
-        : cutter.cut(features, costs, constraints);
+    Segmenter.CutOutcome cut =
+        planes
+            ? PlaneCuts.cutEachPlane(features, costs, constraints, cutter)
+            : cutter.cut(features, costs, constraints);
+    return new Segmenter.CutOutcome(cut.mask(), cut.flow(), bandMs + cut.buildMs(), cut.solveMs());
   }
 
   /** The cut of the voxels that {@code fixed} leaves free (0), the others keeping their labels. */
@@ -337,14 +342,14 @@ final class EdgeRefinement {
     if (rz == 0) {
       return in;
     }
-    int n = in.length;
-    boolean[] out = new boolean[n];
+    boolean[] out = new boolean[in.length];
     int plane = w * h;
-    for (int p = 0; p < n; p++) {
-      if (in[p]) {
-        int z = p / plane;
-        for (int z2 = Math.max(0, z - rz); z2 <= Math.min(d - 1, z + rz); z2++) {
-          out[p + (z2 - z) * plane] = true;
+    for (int z = 0; z < d; z++) {
+      int to = z * plane;
+      for (int z2 = Math.max(0, z - rz); z2 <= Math.min(d - 1, z + rz); z2++) {
+        int from = z2 * plane;
+        for (int i = 0; i < plane; i++) {
+          out[to + i] |= in[from + i];
         }
       }
     }

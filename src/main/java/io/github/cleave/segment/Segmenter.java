@@ -246,6 +246,7 @@ public final class Segmenter {
             image.voxelSize(),
             settings.objects(),
             foregroundSeedMask(seeds));
+    byte[] mask = MaskCleaning.union(objects);
     double objectsMs = millisSince(start);
     start = System.nanoTime();
     List<ObjectMeasurement> measurements =
@@ -253,7 +254,7 @@ public final class Segmenter {
             objects, image.voxelSize(), image, SegmentInputs.measuredChannels(image, settings));
     double measureMs = millisSince(start);
     return new Segmentation(
-        MaskCleaning.union(objects),
+        mask,
         objects,
         measurements,
         CapacityScale.toNats(cut.flow),
