@@ -30,9 +30,6 @@ import java.util.Arrays;
  * shared by directions of equal weight) and one buffer of a row.
  */
 final class BoundaryArcs {
-  /** Whole numbers up to this magnitude are exact in float, int and double alike. */
-  private static final float EXACT_INTEGER = 1 << 24;
-
   private BoundaryArcs() {}
 
   /**
@@ -102,7 +99,7 @@ final class BoundaryArcs {
       for (int c = 0; c < channels.length; c++) {
         channels[c] = features.channel(c);
       }
-      int greyRange = channels.length == 1 ? integerRange(channels[0]) : -1;
+      int greyRange = channels.length == 1 ? features.wholeNumberRange(0) : -1;
       tables = new Object[nb.size()];
       scales = new double[nb.size()];
       steps = new int[nb.size()];
@@ -232,23 +229,5 @@ final class BoundaryArcs {
       }
     }
     return table.length == range + 1 ? table : null;
-  }
-
-  /**
-   * {@code max − min} of {@code values} if every value is a whole number of magnitude at most 2²⁴
-   * (exact in float, int and double alike), else -1.
-   */
-  static int integerRange(float[] values) {
-    int min = Integer.MAX_VALUE;
-    int max = Integer.MIN_VALUE;
-    for (float v : values) {
-      int i = (int) v;
-      if (v != i || !(Math.abs(v) <= EXACT_INTEGER)) {
-        return -1; // NaN, infinite, too large, or a fraction
-      }
-      min = Math.min(min, i);
-      max = Math.max(max, i);
-    }
-    return values.length == 0 ? 0 : max - min;
   }
 }

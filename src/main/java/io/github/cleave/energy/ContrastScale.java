@@ -29,7 +29,7 @@ public final class ContrastScale {
       channels[c] = features.channel(c);
     }
     if (channels.length == 1) {
-      double exact = wholeNumberMean(channels[0], w, h, d, nb);
+      double exact = wholeNumberMean(channels[0], features.wholeNumberRange(0), w, h, d, nb);
       if (!Double.isNaN(exact)) {
         return sigmaOf(exact);
       }
@@ -80,8 +80,8 @@ public final class ContrastScale {
    * conversion to double per pair. NaN when the values are not whole numbers or the bound fails, so
    * that the caller sums in doubles.
    */
-  private static double wholeNumberMean(float[] v, int w, int h, int d, Neighborhood nb) {
-    int range = BoundaryArcs.integerRange(v);
+  private static double wholeNumberMean(
+      float[] v, int range, int w, int h, int d, Neighborhood nb) {
     if (range < 0) {
       return Double.NaN;
     }

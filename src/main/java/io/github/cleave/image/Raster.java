@@ -19,6 +19,13 @@ public final class Raster {
   private final float[][] channels; // channels[c].length == width * height * depth
   private final VoxelSize voxelSize;
   private final PixelKind kind;
+  // wholeNumberRange per channel, UNKNOWN until first asked: computed at most a few times, since
+  // racing threads compute the same int (an idempotent cache, as String's hash code)
+  private final int[] wholeNumberRanges;
+  private static final int UNKNOWN = Integer.MIN_VALUE;
+
+  /** Whole numbers up to this magnitude are exact in float, int and double alike. */
+  private static final float EXACT_INTEGER = 1 << 24;
 
   /**
    * @param channels one array per channel, each of length {@code width * height * depth}
@@ -72,6 +79,8 @@ public final class Raster {
     this.channels = channels.clone();
     this.voxelSize = voxelSize;
     this.kind = kind;
+    this.wholeNumberRanges = new int[channels.length];
+    java.util.Arrays.fill(wholeNumberRanges, UNKNOWN);
   }
 
   /** A single-channel image. */
@@ -113,6 +122,36 @@ public final class Raster {
               channels.length));
     }
     return channels[c];
+  }
+
+  /**
+   * {@code max − min} of channel {@code c} if every value is a whole number of magnitude at most
+   * 2²⁴ (exact in float, int and double alike: 8- and 16-bit images, and whole-valued 32-bit ones),
+   * else -1; 0 for an empty channel. Computed once, in O(n), then kept: the boundary term and the
+   * contrast scale use it to work on whole numbers by table look-up.
+   */
+  public int wholeNumberRange(int c) {
+    float[] values = channel(c);
+    int range = wholeNumberRanges[c];
+    if (range == UNKNOWN) {
+      range = wholeNumberRange(values);
+      wholeNumberRanges[c] = range;
+    }
+    return range;
+  }
+
+  private static int wholeNumberRange(float[] values) {
+    int min = Integer.MAX_VALUE;
+    int max = Integer.MIN_VALUE;
+    for (float v : values) {
+      int i = (int) v;
+      if (v != i || !(Math.abs(v) <= EXACT_INTEGER)) {
+        return -1; // NaN, infinite, too large, or a fraction
+      }
+      min = Math.min(min, i);
+      max = Math.max(max, i);
+    }
+    return values.length == 0 ? 0 : max - min;
   }
 
   public VoxelSize voxelSize() {
