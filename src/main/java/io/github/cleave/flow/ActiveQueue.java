@@ -8,15 +8,15 @@ import java.util.Arrays;
  * operation). Not thread-safe.
  */
 final class ActiveQueue {
-  private static final int NOT_QUEUED = -1;
+  private static final int NOT_QUEUED = 0; // what Java puts in a new array: no fill needed
 
-  private final int[] next; // NOT_QUEUED, the next queued node, or the node itself if it is last
+  // NOT_QUEUED, or 1 + the next queued node, or 1 + the node itself if it is last
+  private final int[] next;
   private int first = -1;
   private int last = -1;
 
   ActiveQueue(int nodes) {
     next = new int[nodes];
-    Arrays.fill(next, NOT_QUEUED);
   }
 
   /** Empties the queue. */
@@ -32,9 +32,9 @@ final class ActiveQueue {
       if (last < 0) {
         first = p;
       } else {
-        next[last] = p;
+        next[last] = p + 1;
       }
-      next[p] = p;
+      next[p] = p + 1;
       last = p;
     }
   }
@@ -43,7 +43,7 @@ final class ActiveQueue {
   int poll() {
     int p = first;
     if (p >= 0) {
-      int after = next[p];
+      int after = next[p] - 1;
       next[p] = NOT_QUEUED;
       if (after == p) {
         first = -1;

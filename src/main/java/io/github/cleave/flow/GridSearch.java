@@ -43,6 +43,7 @@ final class GridSearch {
   private final ActiveQueue active; // nodes whose neighbourhood growth must scan
   private final IntFifo orphans; // nodes whose parent arc was saturated, parent == ORPHAN
   private int time; // incremented at every augmentation
+  private boolean pristine = true; // tree, mark, dist and active as constructed: never searched
 
   // Path found by the growth stage: arc pathTail -> pathTail + offset[pathDirection], S to T.
   private int pathTail;
@@ -182,11 +183,14 @@ final class GridSearch {
    * active if it has a neighbour that is not a child of the same terminal.
    */
   void initialiseTrees() {
-    Arrays.fill(tree, FREE);
+    if (!pristine) { // a new search state is already so, as Java zeroes arrays
+      Arrays.fill(tree, FREE);
+      Arrays.fill(mark, 0);
+      Arrays.fill(dist, 0);
+      active.clear();
+    }
+    pristine = false;
     Arrays.fill(parent, NO_PARENT);
-    Arrays.fill(mark, 0);
-    Arrays.fill(dist, 0);
-    active.clear();
     orphans.clear();
     time = 0;
     pushToNeighbours();
