@@ -6,6 +6,7 @@ import io.github.cleave.flow.MaxFlowResult;
 import io.github.cleave.flow.SolveStatus;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
+import java.util.Arrays;
 import java.util.concurrent.CancellationException;
 
 /**
@@ -118,31 +119,24 @@ final class EdgeRefinement {
     boolean planes = perPlane && d > 1;
     // the three distances from one search in the plane; each takes its own reach in z
     byte[] steps = BoundaryBand.steps(mask, w, h, d, planes, BAND + GAP + RING);
-    boolean[] band = within(steps, BAND, w, h, d, zReach(BAND, features, planes));
-    boolean[] gap = within(steps, BAND + GAP, w, h, d, zReach(BAND + GAP, features, planes));
-    boolean[] outer =
-        within(steps, BAND + GAP + RING, w, h, d, zReach(BAND + GAP + RING, features, planes));
-    byte[] inside = new byte[n];
-    byte[] ring = new byte[n];
-    boolean[] corridor = new boolean[n]; // band and the background of the gap
-    for (int p = 0; p < n; p++) {
-      if (band[p]) {
-        corridor[p] = true;
-      } else if (mask[p] != 0) {
-        inside[p] = 1;
-      } else if (gap[p]) {
-        corridor[p] = true;
-      } else if (outer[p]) {
-        ring[p] = 1;
-      }
-    }
-    int[] bandVoxels = NearestSource.members(band);
-    int[] corridorVoxels = NearestSource.members(corridor);
+    EdgeZones zones =
+        EdgeZones.of(
+            steps,
+            mask,
+            w,
+            h,
+            d,
+            zReach(BAND, features, planes),
+            zReach(BAND + GAP, features, planes),
+            zReach(BAND + GAP + RING, features, planes));
+    int[] bandVoxels = zones.band;
+    int[] corridorVoxels = zones.corridor;
     int[] rank = new int[n]; // 1 + the position in the list searched through, 0 elsewhere
     for (int i = 0; i < corridorVoxels.length; i++) {
       rank[corridorVoxels[i]] = i + 1;
     }
-    int[] throughCorridor = NearestSource.search(ring, corridorVoxels, rank, w, h, d, planes);
+    int[] throughCorridor =
+        NearestSource.search(zones.zone, EdgeZones.RING, corridorVoxels, rank, w, h, d, planes);
     int[] backgroundSource = new int[bandVoxels.length];
     for (int i = 0; i < bandVoxels.length; i++) {
       backgroundSource[i] = throughCorridor[rank[bandVoxels[i]] - 1];
@@ -153,15 +147,11 @@ final class EdgeRefinement {
     for (int i = 0; i < bandVoxels.length; i++) {
       rank[bandVoxels[i]] = i + 1;
     }
-    int[] objectSource = NearestSource.search(inside, bandVoxels, rank, w, h, d, planes);
+    int[] objectSource =
+        NearestSource.search(zones.zone, EdgeZones.INSIDE, bandVoxels, rank, w, h, d, planes);
     Levels levels =
         Levels.measure(
-            features,
-            inside,
-            ring,
-            objectSource,
-            backgroundSource,
-            zReach(WINDOW, features, planes));
+            features, zones.zone, objectSource, backgroundSource, zReach(WINDOW, features, planes));
     int channels = features.channelCount();
     float[][] costs = new float[2][n];
     byte[] seedLabels = seeds.labels();
@@ -179,8 +169,8 @@ final class EdgeRefinement {
       double bg = 0;
       for (int c = 0; c < channels && free; c++) {
         double v = features.channel(c)[p];
-        double a = v - levels.object[c][so];
-        double b = v - levels.background[c][sb];
+        double a = v - levels.object[c][levels.objectIndex[i]];
+        double b = v - levels.background[c][levels.backgroundIndex[i]];
         double s2 = 2 * levels.variance[c];
         free = s2 > 0;
         fg += a * a / s2;
@@ -218,17 +208,19 @@ final class EdgeRefinement {
   }
 
   /**
-   * Local object and background levels per channel, at the interior and ring voxels that some band
-   * voxel takes its levels from (elsewhere 0), and the shared variance per channel.
+   * Local object and background levels per channel at the distinct interior and ring voxels that
+   * some band voxel takes its levels from, and the shared variance per channel: {@code
+   * object[c][objectIndex[i]]} is the object level of the i-th band voxel (when it has a source),
+   * likewise for the background.
    */
-  private record Levels(float[][] object, float[][] background, double[] variance) {
+  private record Levels(
+      float[][] object,
+      float[][] background,
+      int[] objectIndex,
+      int[] backgroundIndex,
+      double[] variance) {
     static Levels measure(
-        Raster features,
-        byte[] inside,
-        byte[] ring,
-        int[] objectSource,
-        int[] backgroundSource,
-        int windowZ) {
+        Raster features, byte[] zone, int[] objectSource, int[] backgroundSource, int windowZ) {
       int[] objectSources = distinct(objectSource);
       int[] backgroundSources = distinct(backgroundSource);
       int channels = features.channelCount();
@@ -237,39 +229,44 @@ final class EdgeRefinement {
       double[] variance = new double[channels];
       for (int c = 0; c < channels; c++) {
         float[] v = features.channel(c);
-        object[c] = new float[v.length];
-        background[c] = new float[v.length];
-        windowMeans(features, v, inside, objectSources, windowZ, object[c]);
-        windowMeans(features, v, ring, backgroundSources, windowZ, background[c]);
+        object[c] = windowMeans(features, v, zone, EdgeZones.INSIDE, objectSources, windowZ);
+        background[c] = windowMeans(features, v, zone, EdgeZones.RING, backgroundSources, windowZ);
         double ss = 0;
         long m = 0;
         for (int p = 0; p < v.length; p += VARIANCE_STRIDE) {
-          byte[] members = inside[p] != 0 ? inside : ring[p] != 0 ? ring : null;
-          if (members != null) {
-            double e = v[p] - windowMean(features, v, members, p, windowZ);
+          byte z = zone[p];
+          if (z == EdgeZones.INSIDE || z == EdgeZones.RING) {
+            double e = v[p] - windowMean(features, v, zone, z, p, windowZ);
             ss += e * e;
             m++;
           }
         }
         variance[c] = m > 0 ? ss / m : 0;
       }
-      return new Levels(object, background, variance);
+      return new Levels(
+          object,
+          background,
+          indices(objectSource, objectSources),
+          indices(backgroundSource, backgroundSources),
+          variance);
     }
 
     /**
-     * At each of {@code sources}, the mean of {@code v} over the voxels of {@code members} in the
-     * window of ±{@link #WINDOW} widths (±{@code windowZ} planes), stored in {@code out}.
+     * At each of {@code sources}, the mean of {@code v} over the voxels of zone {@code member} in
+     * the window of ±{@link #WINDOW} widths (±{@code windowZ} planes).
      */
-    private static void windowMeans(
-        Raster features, float[] v, byte[] members, int[] sources, int windowZ, float[] out) {
-      for (int s : sources) {
-        out[s] = (float) windowMean(features, v, members, s, windowZ);
+    private static float[] windowMeans(
+        Raster features, float[] v, byte[] zone, byte member, int[] sources, int windowZ) {
+      float[] out = new float[sources.length];
+      for (int i = 0; i < sources.length; i++) {
+        out[i] = (float) windowMean(features, v, zone, member, sources[i], windowZ);
       }
+      return out;
     }
 
-    /** The mean of {@code v} over the members in the window around member {@code s}. */
+    /** The mean of {@code v} over zone {@code member} in the window around its voxel s. */
     private static double windowMean(
-        Raster features, float[] v, byte[] members, int s, int windowZ) {
+        Raster features, float[] v, byte[] zone, byte member, int s, int windowZ) {
       int w = features.width();
       int h = features.height();
       int d = features.depth();
@@ -282,7 +279,7 @@ final class EdgeRefinement {
         for (int y2 = Math.max(0, y - WINDOW); y2 <= Math.min(h - 1, y + WINDOW); y2++) {
           int row = w * (y2 + h * z2);
           for (int x2 = Math.max(0, x - WINDOW); x2 <= Math.min(w - 1, x + WINDOW); x2++) {
-            if (members[row + x2] != 0) {
+            if (zone[row + x2] == member) {
               sum += v[row + x2];
               count++;
             }
@@ -294,13 +291,24 @@ final class EdgeRefinement {
 
     /** The distinct non-negative values of {@code sources}, ascending. */
     private static int[] distinct(int[] sources) {
-      java.util.BitSet seen = new java.util.BitSet(sources.length);
-      for (int s : sources) {
-        if (s >= 0) {
-          seen.set(s);
+      int[] sorted = sources.clone();
+      Arrays.sort(sorted);
+      int count = 0;
+      for (int i = 0; i < sorted.length; i++) {
+        if (sorted[i] >= 0 && (count == 0 || sorted[i] != sorted[count - 1])) {
+          sorted[count++] = sorted[i];
         }
       }
-      return seen.stream().toArray();
+      return Arrays.copyOf(sorted, count);
+    }
+
+    /** For each source, its position in {@code distinct} (-1 for none). */
+    private static int[] indices(int[] sources, int[] distinct) {
+      int[] index = new int[sources.length];
+      for (int i = 0; i < sources.length; i++) {
+        index[i] = sources[i] < 0 ? -1 : Arrays.binarySearch(distinct, sources[i]);
+      }
+      return index;
     }
   }
 
@@ -322,37 +330,6 @@ final class EdgeRefinement {
    * ±{@code rz} planes: the product structuring element, so that x, y and z keep their own reach.
    */
   static boolean[] dilate(boolean[] set, int w, int h, int d, int rxy, int rz) {
-    return alongZ(BoundaryBand.grow(set, w, h, d, rxy, false), w, h, d, rz);
-  }
-
-  /**
-   * The voxels within {@code r} steps in the plane of the boundary ({@code 1 ≤ steps ≤ r + 1}, see
-   * {@code BoundaryBand.steps}), dilated by a segment of ±{@code rz} planes.
-   */
-  private static boolean[] within(byte[] steps, int r, int w, int h, int d, int rz) {
-    boolean[] in = new boolean[steps.length];
-    for (int p = 0; p < steps.length; p++) {
-      in[p] = steps[p] != 0 && steps[p] <= r + 1;
-    }
-    return alongZ(in, w, h, d, rz);
-  }
-
-  /** {@code in} dilated by a segment of ±{@code rz} planes ({@code in} itself when rz is 0). */
-  private static boolean[] alongZ(boolean[] in, int w, int h, int d, int rz) {
-    if (rz == 0) {
-      return in;
-    }
-    boolean[] out = new boolean[in.length];
-    int plane = w * h;
-    for (int z = 0; z < d; z++) {
-      int to = z * plane;
-      for (int z2 = Math.max(0, z - rz); z2 <= Math.min(d - 1, z + rz); z2++) {
-        int from = z2 * plane;
-        for (int i = 0; i < plane; i++) {
-          out[to + i] |= in[from + i];
-        }
-      }
-    }
-    return out;
+    return EdgeZones.alongZ(BoundaryBand.grow(set, w, h, d, rxy, false), w, h, d, rz);
   }
 }

@@ -12,40 +12,31 @@ import java.util.Arrays;
 final class NearestSource {
   private NearestSource() {}
 
-  /** The indices of the true entries of {@code set}, ascending. */
-  static int[] members(boolean[] set) {
-    int count = 0;
-    for (boolean b : set) {
-      if (b) {
-        count++;
-      }
-    }
-    int[] out = new int[count];
-    for (int p = 0, i = 0; i < count; p++) {
-      if (set[p]) {
-        out[i++] = p;
-      }
-    }
-    return out;
-  }
-
   /**
-   * For the i-th voxel of {@code bandVoxels}, the nearest voxel with a nonzero {@code source} value
-   * reached through the band (breadth-first, axial steps, ties to the one reached first), or -1.
-   * The search starts from the source voxels next to the band, in raster order (the others could
-   * reach the band only through these), so its cost follows the size of the band, not of the image.
+   * For the i-th voxel of {@code bandVoxels}, the nearest voxel of zone {@code sourceZone} reached
+   * through the band (breadth-first, axial steps, ties to the one reached first), or -1. The search
+   * starts from the source voxels next to the band, in raster order (the others could reach the
+   * band only through these), so its cost follows the size of the band, not of the image.
    *
+   * @param zone a zone per voxel; the sources lie outside the band
    * @param rank 1 + the position in {@code bandVoxels} of each band voxel, 0 elsewhere
    */
   static int[] search(
-      byte[] source, int[] bandVoxels, int[] rank, int w, int h, int d, boolean planes) {
+      byte[] zone,
+      byte sourceZone,
+      int[] bandVoxels,
+      int[] rank,
+      int w,
+      int h,
+      int d,
+      boolean planes) {
     int count = bandVoxels.length;
     int[] around = new int[6];
-    int[] starts = new int[Math.min(source.length, 6 * count)];
+    int[] starts = new int[Math.min(zone.length, 6 * count)];
     int found = 0;
     for (int p : bandVoxels) {
       for (int q : BoundaryBand.axialNeighbours(p, w, h, d, planes, around)) {
-        if (q >= 0 && source[q] != 0) {
+        if (q >= 0 && zone[q] == sourceZone) {
           starts[found++] = q;
         }
       }
