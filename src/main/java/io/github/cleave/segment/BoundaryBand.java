@@ -65,11 +65,12 @@ final class BoundaryBand {
    * steps in the plane ({@link #grow} with {@code acrossPlanes} false), for every r ≤ limit at
    * once.
    *
-   * <p>The number of steps is the city-block distance, computed in two raster passes over each
-   * plane, the first from the left and above, the second from the right and below, which gives it
-   * exactly (A. Rosenfeld and J. L. Pfaltz, "Sequential operations in digital picture processing",
-   * J. ACM 13(4):471–494, 1966, doi:10.1145/321356.321357); distances beyond {@code limit} are kept
-   * at {@code limit + 1}, so bytes suffice. O(n), in memory order.
+   * <p>The number of steps is the city-block distance, which is separable: the distance along each
+   * row (a sweep from the left and one from the right), then the least of those distances plus the
+   * steps along y (a sweep down and one up, whole rows at a time), as in the two-pass method of A.
+   * Rosenfeld and J. L. Pfaltz, "Sequential operations in digital picture processing", J. ACM
+   * 13(4):471–494, 1966, doi:10.1145/321356.321357. Distances beyond {@code limit} are kept at
+   * {@code limit + 1}, so bytes suffice. O(n), in memory order.
    *
    * @param limit at most 126
    */
@@ -83,38 +84,30 @@ final class BoundaryBand {
       // boundary voxels as in boundary(): a missing neighbour is the voxel itself
       int below = !planes && z > 0 ? -plane : 0;
       int above = !planes && z < d - 1 ? plane : 0;
-      for (int y = 0; y < h; y++) { // from the left and from above
+      for (int y = 0; y < h; y++) {
         int row = first + w * y;
         int up = y > 0 ? -w : 0;
         int down = y < h - 1 ? w : 0;
-        int left = far; // the distance just computed, kept out of memory
-        for (int x = 0, p = row; x < w; x++, p++) {
-          byte v = mask[p];
-          boolean onBoundary =
-              mask[p + (x > 0 ? -1 : 0)] != v
-                  | mask[p + (x < w - 1 ? 1 : 0)] != v
-                  | mask[p + up] != v
-                  | mask[p + down] != v
-                  | mask[p + below] != v
-                  | mask[p + above] != v;
-          int best = Math.min(onBoundary ? 0 : far, left + 1);
-          if (y > 0) {
-            best = Math.min(best, steps[p - w] + 1);
-          }
-          steps[p] = (byte) best;
-          left = best;
+        markBoundary(mask, steps, row, row + w - 1, up, down, below, above, far);
+        int left = far; // along the row: the distance just computed, kept out of memory
+        for (int p = row; p < row + w; p++) {
+          left = Math.min(left + 1, steps[p]);
+          steps[p] = (byte) left;
+        }
+        int right = far;
+        for (int p = row + w - 1; p >= row; p--) {
+          right = Math.min(right + 1, steps[p]);
+          steps[p] = (byte) right;
         }
       }
-      for (int y = h - 1; y >= 0; y--) { // from the right and from below
-        int row = first + w * y;
-        int right = far; // the distance just computed, kept out of memory
-        for (int p = row + w - 1; p >= row; p--) {
-          int best = Math.min(steps[p], right + 1);
-          if (y < h - 1) {
-            best = Math.min(best, steps[p + w] + 1);
-          }
-          steps[p] = (byte) best;
-          right = best;
+      for (int y = 1; y < h; y++) { // along y, whole rows: down, then up
+        for (int p = first + w * y, end = p + w; p < end; p++) {
+          steps[p] = (byte) Math.min(steps[p], steps[p - w] + 1);
+        }
+      }
+      for (int y = h - 2; y >= 0; y--) {
+        for (int p = first + w * y, end = p + w; p < end; p++) {
+          steps[p] = (byte) Math.min(steps[p], steps[p + w] + 1);
         }
       }
     }
@@ -123,6 +116,59 @@ final class BoundaryBand {
       steps[p] = (byte) (distance < far ? distance + 1 : 0);
     }
     return steps;
+  }
+
+  /**
+   * {@code out[p] = 0} for the boundary voxels p of the row from {@code first} to {@code last},
+   * {@code far} for the others; {@code up}, {@code down}, {@code below} and {@code above} are the
+   * offsets of those neighbours (0 where missing: a voxel never differs from itself).
+   */
+  private static void markBoundary(
+      byte[] mask,
+      byte[] out,
+      int first,
+      int last,
+      int up,
+      int down,
+      int below,
+      int above,
+      int far) {
+    for (int p = first + 1; p < last; p++) { // no test per voxel inside the row
+      byte v = mask[p];
+      int differs =
+          (mask[p - 1] ^ v)
+              | (mask[p + 1] ^ v)
+              | (mask[p + up] ^ v)
+              | (mask[p + down] ^ v)
+              | (mask[p + below] ^ v)
+              | (mask[p + above] ^ v);
+      out[p] = (byte) (differs != 0 ? 0 : far);
+    }
+    markEnd(mask, out, first, first, last, up, down, below, above, far);
+    markEnd(mask, out, last, first, last, up, down, below, above, far);
+  }
+
+  /** {@link #markBoundary} for voxel p at either end of its row, whose sides may be missing. */
+  private static void markEnd(
+      byte[] mask,
+      byte[] out,
+      int p,
+      int first,
+      int last,
+      int up,
+      int down,
+      int below,
+      int above,
+      int far) {
+    byte v = mask[p];
+    int differs =
+        (p > first ? mask[p - 1] ^ v : 0)
+            | (p < last ? mask[p + 1] ^ v : 0)
+            | (mask[p + up] ^ v)
+            | (mask[p + down] ^ v)
+            | (mask[p + below] ^ v)
+            | (mask[p + above] ^ v);
+    out[p] = (byte) (differs != 0 ? 0 : far);
   }
 
   /**

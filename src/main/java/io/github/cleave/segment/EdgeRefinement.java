@@ -151,7 +151,12 @@ final class EdgeRefinement {
         NearestSource.search(zones.zone, EdgeZones.INSIDE, bandVoxels, rank, w, h, d, planes);
     Levels levels =
         Levels.measure(
-            features, zones.zone, objectSource, backgroundSource, zReach(WINDOW, features, planes));
+            features,
+            zones.zone,
+            objectSource,
+            backgroundSource,
+            zReach(WINDOW, features, planes),
+            rank);
     int channels = features.channelCount();
     float[][] costs = new float[2][n];
     byte[] seedLabels = seeds.labels();
@@ -219,10 +224,21 @@ final class EdgeRefinement {
       int[] objectIndex,
       int[] backgroundIndex,
       double[] variance) {
+    /**
+     * @param scratch one int per voxel, 0 at every source voxel (interior and ring voxels are never
+     *     in the band); overwritten there
+     */
     static Levels measure(
-        Raster features, byte[] zone, int[] objectSource, int[] backgroundSource, int windowZ) {
-      int[] objectSources = distinct(objectSource);
-      int[] backgroundSources = distinct(backgroundSource);
+        Raster features,
+        byte[] zone,
+        int[] objectSource,
+        int[] backgroundSource,
+        int windowZ,
+        int[] scratch) {
+      int[] objectIndex = new int[objectSource.length];
+      int[] backgroundIndex = new int[backgroundSource.length];
+      int[] objectSources = distinct(objectSource, objectIndex, scratch);
+      int[] backgroundSources = distinct(backgroundSource, backgroundIndex, scratch);
       int channels = features.channelCount();
       float[][] object = new float[channels][];
       float[][] background = new float[channels][];
@@ -243,12 +259,7 @@ final class EdgeRefinement {
         }
         variance[c] = m > 0 ? ss / m : 0;
       }
-      return new Levels(
-          object,
-          background,
-          indices(objectSource, objectSources),
-          indices(backgroundSource, backgroundSources),
-          variance);
+      return new Levels(object, background, objectIndex, backgroundIndex, variance);
     }
 
     /**
@@ -289,26 +300,27 @@ final class EdgeRefinement {
       return sum / count; // count >= 1: s itself is a member
     }
 
-    /** The distinct non-negative values of {@code sources}, ascending. */
-    private static int[] distinct(int[] sources) {
-      int[] sorted = sources.clone();
-      Arrays.sort(sorted);
+    /**
+     * The distinct non-negative values of {@code sources} in order of first appearance, with {@code
+     * index[i]} the position of {@code sources[i]} among them (-1 for none); {@code scratch} holds
+     * -(1 + position) at each value found (the sets of object and background sources are disjoint).
+     */
+    private static int[] distinct(int[] sources, int[] index, int[] scratch) {
+      int[] found = new int[sources.length];
       int count = 0;
-      for (int i = 0; i < sorted.length; i++) {
-        if (sorted[i] >= 0 && (count == 0 || sorted[i] != sorted[count - 1])) {
-          sorted[count++] = sorted[i];
-        }
-      }
-      return Arrays.copyOf(sorted, count);
-    }
-
-    /** For each source, its position in {@code distinct} (-1 for none). */
-    private static int[] indices(int[] sources, int[] distinct) {
-      int[] index = new int[sources.length];
       for (int i = 0; i < sources.length; i++) {
-        index[i] = sources[i] < 0 ? -1 : Arrays.binarySearch(distinct, sources[i]);
+        int s = sources[i];
+        if (s < 0) {
+          index[i] = -1;
+          continue;
+        }
+        if (scratch[s] == 0) {
+          found[count++] = s;
+          scratch[s] = -count;
+        }
+        index[i] = -scratch[s] - 1;
       }
-      return index;
+      return Arrays.copyOf(found, count);
     }
   }
 
