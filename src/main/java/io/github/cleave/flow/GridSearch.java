@@ -299,7 +299,7 @@ final class GridSearch {
           pathTail = p;
           pathDirection = k;
           return true;
-        } else if (mark[q] <= mark[p] && dist[q] > dist[p]) {
+        } else if (dist[q] > dist[p] + 1 && mark[q] <= mark[p]) { // only when strictly closer
           parent[q] = (byte) (k ^ 1);
           mark[q] = mark[p];
           dist[q] = dist[p] + 1;
@@ -325,7 +325,7 @@ final class GridSearch {
           pathTail = q;
           pathDirection = k ^ 1;
           return true;
-        } else if (mark[q] <= mark[p] && dist[q] > dist[p]) {
+        } else if (dist[q] > dist[p] + 1 && mark[q] <= mark[p]) {
           parent[q] = (byte) (k ^ 1);
           mark[q] = mark[p];
           dist[q] = dist[p] + 1;
