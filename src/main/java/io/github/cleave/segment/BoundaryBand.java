@@ -133,42 +133,26 @@ final class BoundaryBand {
       int below,
       int above,
       int far) {
-    for (int p = first + 1; p < last; p++) { // no test per voxel inside the row
-      byte v = mask[p];
-      int differs =
-          (mask[p - 1] ^ v)
-              | (mask[p + 1] ^ v)
-              | (mask[p + up] ^ v)
-              | (mask[p + down] ^ v)
-              | (mask[p + below] ^ v)
-              | (mask[p + above] ^ v);
-      out[p] = (byte) (differs != 0 ? 0 : far);
+    for (int p = first + 1; p < last; p++) { // both sides exist: no test per voxel
+      out[p] = (byte) (differs(mask, p, -1, 1, up, down, below, above) ? 0 : far);
     }
-    markEnd(mask, out, first, first, last, up, down, below, above, far);
-    markEnd(mask, out, last, first, last, up, down, below, above, far);
+    out[first] =
+        (byte) (differs(mask, first, 0, first < last ? 1 : 0, up, down, below, above) ? 0 : far);
+    out[last] =
+        (byte) (differs(mask, last, first < last ? -1 : 0, 0, up, down, below, above) ? 0 : far);
   }
 
-  /** {@link #markBoundary} for voxel p at either end of its row, whose sides may be missing. */
-  private static void markEnd(
-      byte[] mask,
-      byte[] out,
-      int p,
-      int first,
-      int last,
-      int up,
-      int down,
-      int below,
-      int above,
-      int far) {
+  /** Whether voxel p differs from a neighbour at one of the offsets (0 for a missing one). */
+  private static boolean differs(
+      byte[] mask, int p, int left, int right, int up, int down, int below, int above) {
     byte v = mask[p];
-    int differs =
-        (p > first ? mask[p - 1] ^ v : 0)
-            | (p < last ? mask[p + 1] ^ v : 0)
+    return ((mask[p + left] ^ v)
+            | (mask[p + right] ^ v)
             | (mask[p + up] ^ v)
             | (mask[p + down] ^ v)
             | (mask[p + below] ^ v)
-            | (mask[p + above] ^ v);
-    out[p] = (byte) (differs != 0 ? 0 : far);
+            | (mask[p + above] ^ v))
+        != 0;
   }
 
   /**
