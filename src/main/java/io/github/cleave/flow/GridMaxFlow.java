@@ -28,9 +28,9 @@ import java.util.Locale;
  * distance was last known to be right; an orphan adopts the valid parent that is closest to the
  * terminal, and growth re-hangs a tree neighbour under the node being grown when that brings it
  * closer to the terminal. Only strictly closer: re-hanging a neighbour at an unchanged distance
- * (which the reference implementation also does, to refresh its time) costs a third of a solve from
- * scratch on segmentation grids, where tree growth crosses wide regions of voxels with equal
- * regional costs, and gained nothing measurable on the strong-boundary benchmark grids.
+ * (which the reference implementation also does, to refresh its time) cost about a quarter of a
+ * solve from scratch on segmentation grids, where tree growth crosses wide regions of voxels with
+ * equal regional costs, and gained nothing measurable on the strong-boundary benchmark grids.
  *
  * <p>Two steps of our own make a solve from scratch cheaper on segmentation grids, where most flow
  * is local: before the trees are built, every path source → p → q → sink between two neighbours is
@@ -50,8 +50,9 @@ import java.util.Locale;
  * interleaved array ({@code residual[p * K + k]}), so all arcs of a node share a cache line; the
  * parent of a node is the one-byte direction towards it. Capacities are {@code int}, sums {@code
  * long}. Besides the one-arc setters, bulk setters fill the network in memory order: one direction
- * for every node, both arcs of every symmetric pair of one direction, every arc of listed nodes (a
- * graph over part of the grid), and terminal capacities or their changes for every node.
+ * for every node, both arcs of every symmetric pair of one direction (for the whole grid or one row
+ * at a time), every arc of one row or of listed nodes (a graph over part of the grid), and terminal
+ * capacities or their changes for every node.
  *
  * <h2>Complexity</h2>
  *
