@@ -245,6 +245,7 @@ public final class FixedLabelCut {
     private final int width;
     private final int height;
     private final int depth;
+    private final int reach; // the neighbourhood's largest offset along an axis
     private final long[] terminals = new long[2];
 
     Arcs(Raster features, EnergyParameters parameters, byte[] fixed) {
@@ -255,6 +256,7 @@ public final class FixedLabelCut {
       width = features.width();
       height = features.height();
       depth = features.depth();
+      reach = neighborhood.reach();
     }
 
     /** Index offset of the neighbour in direction k. */
@@ -272,29 +274,37 @@ public final class FixedLabelCut {
       int x = p - row * width;
       int z = depth == 1 ? 0 : row / height;
       int y = row - z * height;
+      boolean inside = // every neighbour inside the grid: no test per direction
+          x >= reach
+              && x < width - reach
+              && y >= reach
+              && y < height - reach
+              && (depth == 1 || (z >= reach && z < depth - reach));
       long toSource = CapacityScale.toCapacity(backgroundCost[p]);
       long toSink = CapacityScale.toCapacity(foregroundCost[p]);
       for (int k = 0; k < directions; k++) {
-        out[offset + k] = 0;
-        int qx = x + neighborhood.dx(k);
-        int qy = y + neighborhood.dy(k);
-        int qz = z + neighborhood.dz(k);
-        if (qx < 0 || qx >= width || qy < 0 || qy >= height || qz < 0 || qz >= depth) {
+        if (!inside && !neighbourInside(x, y, z, k)) {
+          out[offset + k] = 0;
           continue;
         }
         int cap = pairs.between(p, k);
         byte label = fixed[p + pairs.step(k)];
-        if (label == SeedLabels.FOREGROUND) {
-          toSource += cap;
-        } else if (label == SeedLabels.BACKGROUND) {
-          toSink += cap;
-        } else {
-          out[offset + k] = cap;
-        }
+        // selections, not branches: the labels around a band voxel follow no pattern
+        toSource += label == SeedLabels.FOREGROUND ? cap : 0;
+        toSink += label == SeedLabels.BACKGROUND ? cap : 0;
+        out[offset + k] =
+            label != SeedLabels.FOREGROUND && label != SeedLabels.BACKGROUND ? cap : 0;
       }
       terminals[0] = toSource;
       terminals[1] = toSink;
       return terminals;
+    }
+
+    private boolean neighbourInside(int x, int y, int z, int k) {
+      int qx = x + neighborhood.dx(k);
+      int qy = y + neighborhood.dy(k);
+      int qz = z + neighborhood.dz(k);
+      return qx >= 0 && qx < width && qy >= 0 && qy < height && qz >= 0 && qz < depth;
     }
   }
 }
