@@ -560,30 +560,29 @@ public final class GridMaxFlow implements MaxFlowSolver {
     if (capacity == null) {
       fitResiduals(largest);
     }
-    int forward = k;
-    int backward = offset[k] * directions + (k ^ 1) - k; // from arc (p, k) to (p + offset, k ^ 1)
     for (int z = z0; z < z1; z++) {
       for (int y = y0; y < y1; y++) {
-        int node = x0 + g.width * (y + g.height * z);
-        int a = g.padded(x0, y, z) * directions + forward;
-        int end = a + (x1 - x0) * directions;
-        if (capacity != null) {
-          for (; a < end; a += directions, node++) {
-            int c = caps[node];
-            capacity[a] = c;
-            capacity[a + backward] = c;
-          }
-        } else {
-          Residuals r = search.residual;
-          for (; a < end; a += directions, node++) {
-            int c = caps[node];
-            r.set(a, c);
-            r.set(a + backward, c);
-          }
-        }
+        storePairs(y, z, k, x0, x1 - x0, caps, x0 + g.width * (y + g.height * z));
       }
     }
     generation++;
+  }
+
+  /**
+   * Stores {@code caps[from + i]} on the arc from (x0 + i, y, z) in direction k and on its reverse,
+   * for i below {@code count}; the caller has checked the values and the grid.
+   */
+  private void storePairs(int y, int z, int k, int x0, int count, int[] caps, int from) {
+    int a = layout.padded(x0, y, z) * directions + k;
+    int backward = offset[k] * directions + (k ^ 1) - k; // from arc (p, k) to (p + offset, k ^ 1)
+    if (capacity != null) {
+      for (int i = 0; i < count; i++, a += directions) {
+        capacity[a] = caps[from + i];
+        capacity[a + backward] = caps[from + i];
+      }
+    } else {
+      search.residual.setPairs(a, directions, backward, caps, from, count);
+    }
   }
 
   /**
@@ -652,16 +651,7 @@ public final class GridMaxFlow implements MaxFlowSolver {
     if (capacity == null) {
       fitResiduals(bits);
     }
-    int a = g.padded(x0, y, z) * directions + k;
-    int backward = offset[k] * directions + (k ^ 1) - k; // from arc (p, k) to (p + offset, k ^ 1)
-    if (capacity != null) {
-      for (int i = 0; i < count; i++, a += directions) {
-        capacity[a] = caps[i];
-        capacity[a + backward] = caps[i];
-      }
-    } else {
-      search.residual.setPairs(a, directions, backward, caps, count);
-    }
+    storePairs(y, z, k, x0, count, caps, 0);
     generation++;
   }
 

@@ -37,10 +37,10 @@ abstract sealed class Residuals permits Residuals.Narrow, Residuals.Wide {
   abstract void copyFrom(int[] source, int from, int to, int length);
 
   /**
-   * Stores {@code values[i]} at {@code a + i * stride} and at {@code a + i * stride + other}, for i
-   * below {@code count}: both arcs of a run of symmetric pairs. Each value must fit.
+   * Stores {@code values[from + i]} at {@code a + i * stride} and at {@code a + i * stride +
+   * other}, for i below {@code count}: both arcs of a run of symmetric pairs. Each value must fit.
    */
-  abstract void setPairs(int a, int stride, int other, int[] values, int count);
+  abstract void setPairs(int a, int stride, int other, int[] values, int from, int count);
 
   /** A 32-bit copy. */
   abstract Wide widened();
@@ -91,10 +91,10 @@ abstract sealed class Residuals permits Residuals.Narrow, Residuals.Wide {
     }
 
     @Override
-    void setPairs(int a, int stride, int other, int[] source, int count) {
+    void setPairs(int a, int stride, int other, int[] source, int from, int count) {
       char[] v = values;
       for (int i = 0; i < count; i++, a += stride) {
-        char c = (char) source[i];
+        char c = (char) source[from + i];
         v[a] = c;
         v[a + other] = c;
       }
@@ -154,10 +154,10 @@ abstract sealed class Residuals permits Residuals.Narrow, Residuals.Wide {
     }
 
     @Override
-    void setPairs(int a, int stride, int other, int[] source, int count) {
+    void setPairs(int a, int stride, int other, int[] source, int from, int count) {
       int[] v = values;
       for (int i = 0; i < count; i++, a += stride) {
-        int c = source[i];
+        int c = source[from + i];
         v[a] = c;
         v[a + other] = c;
       }

@@ -42,16 +42,7 @@ final class BoundaryBand {
         int down = y < h - 1 ? w : 0;
         int row = w * (y + h * z);
         for (int x = 0, p = row; x < w; x++, p++) {
-          int left = x > 0 ? -1 : 0;
-          int right = x < w - 1 ? 1 : 0;
-          byte v = mask[p];
-          out[p] =
-              mask[p + left] != v
-                  | mask[p + right] != v
-                  | mask[p + up] != v
-                  | mask[p + down] != v
-                  | mask[p + below] != v
-                  | mask[p + above] != v;
+          out[p] = differs(mask, p, x > 0 ? -1 : 0, x < w - 1 ? 1 : 0, up, down, below, above);
         }
       }
     }

@@ -158,6 +158,10 @@ final class EdgeRefinement {
             zReach(WINDOW, features, planes),
             rank);
     int channels = features.channelCount();
+    float[][] values = new float[channels][];
+    for (int c = 0; c < channels; c++) {
+      values[c] = features.channel(c);
+    }
     float[][] costs = new float[2][n];
     byte[] seedLabels = seeds.labels();
     byte[] hard = new byte[n]; // seeds, and the cut's labels; band voxels freed below
@@ -173,7 +177,7 @@ final class EdgeRefinement {
       double fg = 0;
       double bg = 0;
       for (int c = 0; c < channels && free; c++) {
-        double v = features.channel(c)[p];
+        double v = values[c][p];
         double a = v - levels.object[c][levels.objectIndex[i]];
         double b = v - levels.background[c][levels.backgroundIndex[i]];
         double s2 = 2 * levels.variance[c];
