@@ -28,12 +28,6 @@ public final class ContrastScale {
     for (int c = 0; c < channels.length; c++) {
       channels[c] = features.channel(c);
     }
-    if (channels.length == 1) {
-      double exact = wholeNumberMean(channels[0], features.wholeNumberRange(0), w, h, d, nb);
-      if (!Double.isNaN(exact)) {
-        return sigmaOf(exact);
-      }
-    }
     double sum = 0;
     long pairs = 0;
     for (int k = 0; k < nb.size(); k += 2) {
@@ -71,53 +65,6 @@ public final class ContrastScale {
   private static double sigmaOf(double meanSquaredDifference) {
     double sigma = Math.sqrt(0.5 * meanSquaredDifference);
     return sigma > 0 ? sigma : Double.MIN_NORMAL;
-  }
-
-  /**
-   * The mean squared difference of one channel of whole numbers (8- and 16-bit images), summed in
-   * {@code long}: the same value as the sum of doubles, which is exact too as long as no partial
-   * sum reaches 2⁵³ (checked up front from the value range and the pair count), only without a
-   * conversion to double per pair. NaN when the values are not whole numbers or the bound fails, so
-   * that the caller sums in doubles.
-   */
-  private static double wholeNumberMean(
-      float[] v, int range, int w, int h, int d, Neighborhood nb) {
-    if (range < 0) {
-      return Double.NaN;
-    }
-    long pairs = 0;
-    for (int k = 0; k < nb.size(); k += 2) {
-      pairs += pairCount(w, h, d, nb.dx(k), nb.dy(k), nb.dz(k));
-    }
-    if ((double) range * range * pairs >= 0x1p53) {
-      return Double.NaN;
-    }
-    long sum = 0;
-    for (int k = 0; k < nb.size(); k += 2) {
-      int dx = nb.dx(k);
-      int dy = nb.dy(k);
-      int dz = nb.dz(k);
-      int step = dx + w * (dy + h * dz);
-      int x0 = Math.max(0, -dx);
-      int x1 = Math.min(w, w - dx);
-      for (int z = Math.max(0, -dz); z < Math.min(d, d - dz); z++) {
-        for (int y = Math.max(0, -dy); y < Math.min(h, h - dy); y++) {
-          int base = w * (y + h * z);
-          for (int p = base + x0; p < base + x1; p++) {
-            long diff = (int) v[p] - (int) v[p + step];
-            sum += diff * diff;
-          }
-        }
-      }
-    }
-    return pairs == 0 ? 0 : (double) sum / pairs;
-  }
-
-  /** The number of voxels whose neighbour at (dx, dy, dz) lies inside a w × h × d grid. */
-  private static long pairCount(int w, int h, int d, int dx, int dy, int dz) {
-    return (long) Math.max(0, w - Math.abs(dx))
-        * Math.max(0, h - Math.abs(dy))
-        * Math.max(0, d - Math.abs(dz));
   }
 
   /**

@@ -88,12 +88,14 @@ public final class SeedLabels {
     // seeds are sparse: counting only the labelled voxels avoids a chain of increments of one
     // counter (label 0) that would wait for each other; label 0 is what remains
     long[] counts = new long[256];
-    long labelled = 0;
     for (byte b : labels) {
       if (b != 0) {
         counts[b & 0xff]++;
-        labelled++;
       }
+    }
+    long labelled = 0;
+    for (int label = 1; label < counts.length; label++) {
+      labelled += counts[label];
     }
     counts[0] = labels.length - labelled;
     int max = 255;

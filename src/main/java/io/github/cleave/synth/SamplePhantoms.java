@@ -111,10 +111,12 @@ public final class SamplePhantoms {
     NucleusLayout layout =
         NucleusLayout.place(
             random, width, height, 1, area / 6000, Math.max(2, area / 50000), 8, 15, 0, 0.35, 1.3);
-    double[] illumination =
-        Fields.illumination(width, height, random.nextDouble() * 2 * Math.PI, 0.15, 0.3);
+    double angle = random.nextDouble() * 2 * Math.PI; // drawn either way: the same layout after it
+    double[] illumination = new double[width * height];
     if (evenlyLit) {
       Arrays.fill(illumination, 1.0);
+    } else {
+      illumination = Fields.illumination(width, height, angle, 0.15, 0.3);
     }
     int[] labels = layout.labels(width, height, 1, null);
     double[] texture = Fields.texture(random, width, height, 1, 1.5, 1.5, 0);
