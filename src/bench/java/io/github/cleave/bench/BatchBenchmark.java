@@ -57,16 +57,7 @@ public final class BatchBenchmark {
     o.put("rounds", Integer.toString(SegmentationSettings.defaults().refinementRounds()));
     o.put("illumination", "AUTO");
     o.put("lighting", "ramp");
-    for (String arg : args) {
-      if (arg.equals("all")) {
-        continue;
-      }
-      int eq = arg.indexOf('=');
-      if (eq < 0 || !o.containsKey(arg.substring(0, eq))) {
-        throw new IllegalArgumentException("unknown argument '" + arg + "'; known: " + o.keySet());
-      }
-      o.put(arg.substring(0, eq), arg.substring(eq + 1));
-    }
+    BenchOptions.apply(o, args);
     int images = Integer.parseInt(o.get("images"));
     int size = Integer.parseInt(o.get("size"));
     int warmup = Integer.parseInt(o.get("warmup"));
@@ -98,7 +89,7 @@ public final class BatchBenchmark {
                     SegmentationSettings.DEFAULT_FLATTEN_RADIUS)));
 
     double load = ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage();
-    System.out.println(GridBenchmark.machine());
+    System.out.println(BenchOptions.machine());
     System.out.println(
         String.format(
             Locale.ROOT,

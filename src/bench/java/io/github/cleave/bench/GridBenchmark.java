@@ -35,16 +35,7 @@ public final class GridBenchmark {
     options.put("jgrapht-max-nodes", "1100000");
     options.put("out", "");
     options.put("dynamic", "2d-1024-n8-ordinary");
-    for (String arg : args) {
-      if (arg.equals("all")) {
-        continue;
-      }
-      int eq = arg.indexOf('=');
-      if (eq < 0 || !options.containsKey(arg.substring(0, eq))) {
-        throw new IllegalArgumentException("unknown argument '" + arg + "'; known: " + options.keySet());
-      }
-      options.put(arg.substring(0, eq), arg.substring(eq + 1));
-    }
+    BenchOptions.apply(options, args);
     List<String> names =
         options.get("instances").equals("all")
             ? BenchInstance.ALL
@@ -55,7 +46,7 @@ public final class GridBenchmark {
     long jgraphtMax = Long.parseLong(options.get("jgrapht-max-nodes"));
 
     List<String> lines = new ArrayList<>();
-    lines.add(machine());
+    lines.add(BenchOptions.machine());
     lines.add("");
     lines.add(
         "| instance | solver | build ms | solve ms | flow | bytes/node | solve ratio vs this engine | note |");
@@ -134,28 +125,5 @@ public final class GridBenchmark {
 
   private static String fmt(double value) {
     return Double.isNaN(value) ? "-" : String.format(Locale.ROOT, "%.1f", value);
-  }
-
-  static String machine() {
-    String cpu = "unknown CPU";
-    try {
-      for (String line : Files.readAllLines(Path.of("/proc/cpuinfo"))) {
-        if (line.startsWith("model name")) {
-          cpu = line.substring(line.indexOf(':') + 1).trim();
-          break;
-        }
-      }
-    } catch (IOException e) {
-      // keep "unknown CPU"
-    }
-    return String.format(
-        Locale.ROOT,
-        "%s · %d cores · %s · %s %s · max heap %d MiB",
-        LocalDate.now(),
-        Runtime.getRuntime().availableProcessors(),
-        cpu,
-        System.getProperty("java.vm.name"),
-        System.getProperty("java.runtime.version"),
-        Runtime.getRuntime().maxMemory() >> 20);
   }
 }

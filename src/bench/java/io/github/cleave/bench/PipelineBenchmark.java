@@ -49,23 +49,13 @@ public final class PipelineBenchmark {
     options.put("repeats", "7");
     options.put("seed", Long.toString(SamplePhantoms.DEFAULT_SEED));
     options.put("out", "");
-    for (String arg : args) {
-      if (arg.equals("all")) {
-        continue;
-      }
-      int eq = arg.indexOf('=');
-      if (eq < 0 || !options.containsKey(arg.substring(0, eq))) {
-        throw new IllegalArgumentException(
-            "unknown argument '" + arg + "'; known: " + options.keySet());
-      }
-      options.put(arg.substring(0, eq), arg.substring(eq + 1));
-    }
+    BenchOptions.apply(options, args);
     int warmup = Integer.parseInt(options.get("warmup"));
     int repeats = Integer.parseInt(options.get("repeats"));
     long seed = Long.parseLong(options.get("seed"));
 
     List<String> lines = new ArrayList<>();
-    lines.add(GridBenchmark.machine());
+    lines.add(BenchOptions.machine());
     lines.add("");
     lines.add(
         "| case | illumination | rounds | flatten | learn | costs | build | solve | objects |"

@@ -47,6 +47,11 @@ public final class FileTask {
     return new FileTask(spec, spec.parseModel(), budget, cancelled);
   }
 
+  /** Whether this function recomputes files whose outputs are complete instead of keeping them. */
+  public boolean overwrites() {
+    return spec.overwrites();
+  }
+
   /** The same function recomputing files whose outputs are complete instead of keeping them. */
   public FileTask overwriting() {
     return new FileTask(spec.overwriting(), model, budget, cancelled);

@@ -68,6 +68,26 @@ public final class InputNames {
     return !folderName.startsWith(".");
   }
 
+  /** The folder of the input at {@code relative} (folders joined by {@code /}); "" at the top. */
+  public static String folderOf(String relative) {
+    int slash = relative.lastIndexOf('/');
+    return slash < 0 ? "" : relative.substring(0, slash);
+  }
+
+  /** The base name of the outputs of the input at {@code relative}: as a run names them. */
+  public static String baseOf(String relative) {
+    return SegmentationFiles.baseName(Path.of(relative.substring(relative.lastIndexOf('/') + 1)));
+  }
+
+  /**
+   * The file beside the input at {@code relative} (or, below an output folder, its output) with
+   * this suffix, e.g. {@code a/b.tif} and {@code .mask.tif} give {@code a/b.mask.tif}.
+   */
+  public static String sibling(String relative, String suffix) {
+    String folder = folderOf(relative);
+    return (folder.isEmpty() ? "" : folder + "/") + baseOf(relative) + suffix;
+  }
+
   /**
    * Checks a listing: refuses an empty one and two inputs of one folder whose outputs would share
    * names (compared ignoring case).
@@ -88,10 +108,7 @@ public final class InputNames {
     }
     Map<String, String> seen = new HashMap<>();
     for (String relative : relatives) {
-      int slash = relative.lastIndexOf('/');
-      String folder = slash < 0 ? "" : relative.substring(0, slash);
-      String base = SegmentationFiles.baseName(Path.of(relative.substring(slash + 1)));
-      String key = (folder + "/" + base).toLowerCase(Locale.ROOT);
+      String key = (folderOf(relative) + "/" + baseOf(relative)).toLowerCase(Locale.ROOT);
       String other = seen.putIfAbsent(key, relative);
       if (other != null) {
         throw new BadInputException(
@@ -100,7 +117,7 @@ public final class InputNames {
                 + " and "
                 + relative
                 + " would write outputs of the same names ("
-                + base
+                + baseOf(relative)
                 + ".mask.tif, ...): rename one, move it to another folder, or narrow --pattern");
       }
     }

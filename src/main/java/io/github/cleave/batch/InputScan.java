@@ -1,7 +1,6 @@
 package io.github.cleave.batch;
 
 import io.github.cleave.image.BadInputException;
-import io.github.cleave.io.SegmentationFiles;
 import java.io.IOException;
 import java.nio.file.FileVisitResult;
 import java.nio.file.Files;
@@ -37,10 +36,11 @@ final class InputScan {
      * normalised, as {@link #scan} uses it): the same value the scan makes for that file.
      */
     static InputFile of(Path in, String relative) {
-      Path file = in.resolve(relative);
-      int slash = relative.lastIndexOf('/');
-      String folder = slash < 0 ? "" : relative.substring(0, slash);
-      return new InputFile(file, relative, folder, SegmentationFiles.baseName(file));
+      return new InputFile(
+          in.resolve(relative),
+          relative,
+          InputNames.folderOf(relative),
+          InputNames.baseOf(relative));
     }
 
     /** The folder of this file's outputs. */
@@ -109,12 +109,7 @@ final class InputScan {
             Path rel = in.relativize(file);
             String relative = rel.toString().replace(rel.getFileSystem().getSeparator(), "/");
             if (names.takes(file.getFileName().toString(), relative)) {
-              Path parent = rel.getParent();
-              String folder =
-                  parent == null
-                      ? ""
-                      : parent.toString().replace(rel.getFileSystem().getSeparator(), "/");
-              files.add(new InputFile(file, relative, folder, SegmentationFiles.baseName(file)));
+              files.add(InputFile.of(in, relative));
             }
             return FileVisitResult.CONTINUE;
           }

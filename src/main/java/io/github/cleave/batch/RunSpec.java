@@ -74,6 +74,11 @@ public final class RunSpec implements Serializable {
     this.ranges = base.ranges;
   }
 
+  /** Whether files whose outputs are complete are recomputed instead of kept. */
+  boolean overwrites() {
+    return overwrite;
+  }
+
   /** The same run, recomputing files whose outputs are complete instead of keeping them. */
   RunSpec overwriting() {
     return overwrite ? this : new RunSpec(this, true);

@@ -1,5 +1,6 @@
 package io.github.cleave.spark;
 
+import io.github.cleave.bench.BenchOptions;
 import io.github.cleave.cli.BatchFixtures;
 import io.github.cleave.io.ModelFiles;
 import io.github.cleave.segment.SegmentationSettings;
@@ -46,16 +47,7 @@ public final class SparkBatchBenchmark {
     o.put("perPartition", "4");
     o.put("seed", Long.toString(SamplePhantoms.DEFAULT_SEED));
     o.put("dir", "");
-    for (String arg : args) {
-      if (arg.equals("all")) {
-        continue;
-      }
-      int eq = arg.indexOf('=');
-      if (eq < 0 || !o.containsKey(arg.substring(0, eq))) {
-        throw new IllegalArgumentException("unknown argument '" + arg + "'; known: " + o.keySet());
-      }
-      o.put(arg.substring(0, eq), arg.substring(eq + 1));
-    }
+    BenchOptions.apply(o, args);
     int images = Integer.parseInt(o.get("images"));
     int size = Integer.parseInt(o.get("size"));
     int repeats = Integer.parseInt(o.get("repeats"));
@@ -109,7 +101,7 @@ public final class SparkBatchBenchmark {
         sc.stop();
       }
     }
-    System.out.println(machine());
+    System.out.println(BenchOptions.machine());
     System.out.println(
         String.format(
             Locale.ROOT,
@@ -183,28 +175,5 @@ public final class SparkBatchBenchmark {
 
   private static double load() {
     return ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage();
-  }
-
-  private static String machine() {
-    String cpu = "unknown CPU";
-    try {
-      for (String line : Files.readAllLines(Path.of("/proc/cpuinfo"))) {
-        if (line.startsWith("model name")) {
-          cpu = line.substring(line.indexOf(':') + 1).trim();
-          break;
-        }
-      }
-    } catch (IOException e) {
-      // keep "unknown CPU"
-    }
-    return String.format(
-        Locale.ROOT,
-        "%s · %d cores · %s · %s %s · max heap %d MiB",
-        java.time.LocalDate.now(),
-        Runtime.getRuntime().availableProcessors(),
-        cpu,
-        System.getProperty("java.vm.name"),
-        System.getProperty("java.runtime.version"),
-        Runtime.getRuntime().maxMemory() >> 20);
   }
 }

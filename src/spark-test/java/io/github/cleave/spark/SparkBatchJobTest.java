@@ -28,19 +28,21 @@ class SparkBatchJobTest {
   static Path in;
   static List<String> good;
   static JavaSparkContext sc;
+  static SparkFixtures.MixedFolder fixture;
 
   @BeforeAll
   static void start() throws IOException {
-    model = BatchFixtures.model(shared.resolve("model.json"), SIZE);
-    in = shared.resolve("in");
-    good = BatchFixtures.mixedFolder(in, SIZE);
-    sc = SparkFixtures.context("local[2]");
+    fixture = SparkFixtures.mixedFolder(shared, SIZE, "local[2]");
+    model = fixture.model();
+    in = fixture.in();
+    good = fixture.good();
+    sc = fixture.sc();
   }
 
   @AfterAll
   static void stop() {
-    if (sc != null) {
-      sc.stop();
+    if (fixture != null) {
+      fixture.stop();
     }
   }
 

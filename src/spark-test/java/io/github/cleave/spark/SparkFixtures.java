@@ -27,6 +27,27 @@ final class SparkFixtures {
   /** What a command printed and returned. */
   record Run(int exit, String out, String err) {}
 
+  /** The batch tests' model and mixed folder in {@code shared}, and a context for the job. */
+  record MixedFolder(Path model, Path in, List<String> good, JavaSparkContext sc) {
+    /** Stops the context, if one was started. */
+    void stop() {
+      if (sc != null) {
+        sc.stop();
+      }
+    }
+  }
+
+  /**
+   * Writes the batch tests' model and their folder of good and unusable {@code size}² images into
+   * {@code shared}, and starts an embedded context on {@code master}.
+   */
+  static MixedFolder mixedFolder(Path shared, int size, String master) throws IOException {
+    Path model = BatchFixtures.model(shared.resolve("model.json"), size);
+    Path in = shared.resolve("in");
+    List<String> good = BatchFixtures.mixedFolder(in, size);
+    return new MixedFolder(model, in, good, context(master));
+  }
+
   /** An embedded context without web UI, bound to the loopback interface. */
   static JavaSparkContext context(String master) {
     return new JavaSparkContext(

@@ -3,7 +3,6 @@ package io.github.cleave.spark;
 import static io.github.cleave.spark.SparkFixtures.job;
 import static org.assertj.core.api.Assertions.assertThat;
 
-import io.github.cleave.cli.BatchFixtures;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
@@ -31,14 +30,15 @@ class SparkRetryTest {
   static Path model;
   static Path in;
   static JavaSparkContext sc;
+  static SparkFixtures.MixedFolder fixture;
   static final AtomicInteger lostTasks = new AtomicInteger();
 
   @BeforeAll
   static void start() throws IOException {
-    model = BatchFixtures.model(shared.resolve("model.json"), SIZE);
-    in = shared.resolve("in");
-    BatchFixtures.mixedFolder(in, SIZE);
-    sc = SparkFixtures.context("local[2,2]"); // spark.task.maxFailures = 2 in local mode
+    fixture = SparkFixtures.mixedFolder(shared, SIZE, "local[2,2]"); // maxFailures 2 in local mode
+    model = fixture.model();
+    in = fixture.in();
+    sc = fixture.sc();
     sc.sc()
         .addSparkListener(
             new SparkListener() {
@@ -53,8 +53,8 @@ class SparkRetryTest {
 
   @AfterAll
   static void stop() {
-    if (sc != null) {
-      sc.stop();
+    if (fixture != null) {
+      fixture.stop();
     }
   }
 
@@ -63,22 +63,8 @@ class SparkRetryTest {
       throws IOException, InterruptedException {
     Path clean = tmp.resolve("clean");
     Path retried = tmp.resolve("retried");
-    SparkFixtures.Run c = job(sc, args(clean));
-    assertThat(c.exit()).as(c.err()).isEqualTo(3);
-    SparkFixtures.Run r;
-    int lostBefore = lostTasks.get();
-    System.setProperty(SparkBatchJob.FAIL_ONCE_PROPERTY, "2");
-    try {
-      r = job(sc, args(retried));
-    } finally {
-      System.clearProperty(SparkBatchJob.FAIL_ONCE_PROPERTY);
-    }
-    assertThat(r.exit()).as(r.err()).isEqualTo(3);
-    // listener events arrive asynchronously: wait (without a time limit on the result) for them
-    for (int i = 0; i < 200 && lostTasks.get() == lostBefore; i++) {
-      Thread.sleep(50);
-    }
-    assertThat(lostTasks.get() - lostBefore).as("the injected failure happened").isEqualTo(1);
+    SparkFixtures.Run c = cleanRun(clean);
+    SparkFixtures.Run r = failingOnce("2", args(in.toString(), retried.toString()));
     assertThat(r.out()).isEqualTo(c.out().replace(clean.toString(), retried.toString()));
     SparkFixtures.assertSameOutputs(clean, retried);
   }
@@ -88,31 +74,8 @@ class SparkRetryTest {
       throws IOException, InterruptedException {
     Path clean = tmp.resolve("clean");
     Path retried = tmp.resolve("retried");
-    SparkFixtures.Run c = job(sc, args(clean));
-    assertThat(c.exit()).as(c.err()).isEqualTo(3);
-    SparkFixtures.Run r;
-    int lostBefore = lostTasks.get();
-    System.setProperty(SparkBatchJob.FAIL_ONCE_PROPERTY, "1");
-    try {
-      r =
-          job(
-              sc,
-              "--model",
-              model.toString(),
-              "--in",
-              "file://" + in,
-              "--out",
-              "file://" + retried,
-              "--files-per-partition",
-              "2");
-    } finally {
-      System.clearProperty(SparkBatchJob.FAIL_ONCE_PROPERTY);
-    }
-    assertThat(r.exit()).as(r.err()).isEqualTo(3);
-    for (int i = 0; i < 200 && lostTasks.get() == lostBefore; i++) {
-      Thread.sleep(50);
-    }
-    assertThat(lostTasks.get() - lostBefore).as("the injected failure happened").isEqualTo(1);
+    cleanRun(clean);
+    failingOnce("1", args("file://" + in, "file://" + retried));
     Map<String, String> renamed = new LinkedHashMap<>();
     renamed.put("file://" + in, in.toString());
     renamed.put("file:" + in, in.toString());
@@ -120,16 +83,39 @@ class SparkRetryTest {
     SparkFixtures.assertSameOutputs(clean, retried, renamed);
   }
 
-  private static String[] args(Path out) {
+  /** A run without failures into {@code out}: exit 3, for the folder's bad files. */
+  private static SparkFixtures.Run cleanRun(Path out) {
+    SparkFixtures.Run c = job(sc, args(in.toString(), out.toString()));
+    assertThat(c.exit()).as(c.err()).isEqualTo(3);
+    return c;
+  }
+
+  /**
+   * A run whose given partition fails once after its first file: exit 3 as a clean run, and exactly
+   * one lost task.
+   */
+  private static SparkFixtures.Run failingOnce(String partition, String... args)
+      throws InterruptedException {
+    SparkFixtures.Run r;
+    int lostBefore = lostTasks.get();
+    System.setProperty(SparkBatchJob.FAIL_ONCE_PROPERTY, partition);
+    try {
+      r = job(sc, args);
+    } finally {
+      System.clearProperty(SparkBatchJob.FAIL_ONCE_PROPERTY);
+    }
+    assertThat(r.exit()).as(r.err()).isEqualTo(3);
+    // listener events arrive asynchronously: wait (without a time limit on the result) for them
+    for (int i = 0; i < 200 && lostTasks.get() == lostBefore; i++) {
+      Thread.sleep(50);
+    }
+    assertThat(lostTasks.get() - lostBefore).as("the injected failure happened").isEqualTo(1);
+    return r;
+  }
+
+  private static String[] args(String in, String out) {
     return new String[] {
-      "--model",
-      model.toString(),
-      "--in",
-      in.toString(),
-      "--out",
-      out.toString(),
-      "--files-per-partition",
-      "2"
+      "--model", model.toString(), "--in", in, "--out", out, "--files-per-partition", "2"
     };
   }
 }

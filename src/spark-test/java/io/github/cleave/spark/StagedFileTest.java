@@ -39,10 +39,9 @@ class StagedFileTest {
               RemoteFiles.fileUrl(out).toString(),
               null,
               model.toString(),
-              false,
               new HadoopConf(new Configuration()));
       StagedFile staged = new StagedFile(staging, modelCopy);
-      FileOutcome ok = staged.run(task, "img-00.tif", true);
+      FileOutcome ok = staged.run(task, "img-00.tif");
       assertThat(ok.failed()).as(ok.message()).isFalse();
       assertThat(ok.reused()).isFalse();
       assertThat(Files.readString(out.resolve("img-00.record.json")))
@@ -50,17 +49,17 @@ class StagedFileTest {
           .contains("\"path\": \"" + model + "\"")
           .doesNotContain("cleave-stage-");
       assertThat(BatchFixtures.hiddenFiles(out)).isEmpty();
-      FileOutcome again = staged.run(task, "img-00.tif", true);
+      FileOutcome again = staged.run(task, "img-00.tif");
       assertThat(again.reused()).isTrue();
       // recomputed (a retried attempt): a class map of an earlier run with more classes goes
       Files.writeString(out.resolve("img-00.classes.tif"), "an earlier run's class map");
-      FileOutcome redone = staged.run(task, "img-00.tif", false);
+      FileOutcome redone = staged.run(task.overwriting(), "img-00.tif");
       assertThat(redone.failed()).as(redone.message()).isFalse();
       assertThat(redone.reused()).isFalse();
       assertThat(out.resolve("img-00.classes.tif")).doesNotExist();
       assertThat(out.resolve("img-00.record.json")).exists();
       Files.writeString(out.resolve("gone.record.json"), "{}\n");
-      FileOutcome gone = staged.run(task, "gone.tif", true);
+      FileOutcome gone = staged.run(task, "gone.tif");
       assertThat(gone.failed()).isTrue();
       assertThat(gone.message())
           .startsWith("cannot copy it between")

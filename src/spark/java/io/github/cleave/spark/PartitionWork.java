@@ -64,12 +64,10 @@ final class PartitionWork implements FlatMapFunction<Iterator<IndexedFile>, Inde
         Files.write(model, spec.value().modelJson());
         staged = new StagedFile(where, model);
       }
-      boolean keep = !(where != null && where.overwrite()) && tc.attemptNumber() == 0;
       List<IndexedOutcome> out = new ArrayList<>();
       while (files.hasNext()) {
         IndexedFile f = files.next();
-        FileOutcome o =
-            staged == null ? task.run(f.relative()) : staged.run(task, f.relative(), keep);
+        FileOutcome o = staged == null ? task.run(f.relative()) : staged.run(task, f.relative());
         out.add(new IndexedOutcome(f.index(), o));
         if (injectFailure) {
           throw new IllegalStateException(

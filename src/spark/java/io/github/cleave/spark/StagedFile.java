@@ -2,9 +2,9 @@ package io.github.cleave.spark;
 
 import io.github.cleave.batch.FileOutcome;
 import io.github.cleave.batch.FileTask;
+import io.github.cleave.batch.InputNames;
 import io.github.cleave.batch.PreparedRun;
 import io.github.cleave.io.SeedFiles;
-import io.github.cleave.io.SegmentationFiles;
 import java.io.IOException;
 import java.io.InterruptedIOException;
 import java.nio.file.Files;
@@ -41,12 +41,10 @@ final class StagedFile {
   }
 
   /**
-   * Processes one file.
-   *
-   * @param keepComplete whether complete outputs of an earlier run may be kept (not overwriting,
-   *     not a retried attempt)
+   * Processes one file; complete outputs of an earlier run are kept unless {@code task} {@link
+   * FileTask#overwrites() overwrites} (as it does when asked to and in a retried attempt).
    */
-  FileOutcome run(FileTask task, String relative, boolean keepComplete) {
+  FileOutcome run(FileTask task, String relative) {
     long start = System.nanoTime();
     java.nio.file.Path local = null;
     try {
@@ -58,32 +56,31 @@ final class StagedFile {
       if (seeds != null) {
         Files.createDirectories(seeds);
       }
-      int slash = relative.lastIndexOf('/');
-      String folder = slash < 0 ? "" : relative.substring(0, slash);
-      String base = baseName(relative.substring(slash + 1));
+      String folder = InputNames.folderOf(relative);
+      String base = InputNames.baseOf(relative);
       Path remoteIn = staging.inPath();
       FileSystem inFs = RemoteFiles.fileSystem(remoteIn, conf);
       RemoteFiles.download(inFs, Staging.below(remoteIn, relative), in.resolve(relative));
-      Files.createDirectories(in.resolve(folder));
+      Path remoteSeeds = seeds == null ? null : staging.seedsPath();
+      FileSystem seedsFs = seeds == null ? null : RemoteFiles.fileSystem(remoteSeeds, conf);
       for (String suffix : SeedFiles.SUFFIXES) {
-        String seedFile = prefix(folder) + base + suffix;
+        String seedFile = InputNames.sibling(relative, suffix);
         RemoteFiles.downloadIfFile(inFs, Staging.below(remoteIn, seedFile), in.resolve(seedFile));
         if (seeds != null) {
-          Path remoteSeeds = staging.seedsPath();
           RemoteFiles.downloadIfFile(
-              RemoteFiles.fileSystem(remoteSeeds, conf),
-              Staging.below(remoteSeeds, seedFile),
-              seeds.resolve(seedFile));
+              seedsFs, Staging.below(remoteSeeds, seedFile), seeds.resolve(seedFile));
         }
       }
       Path remoteOut = staging.outPath();
       FileSystem outFs = RemoteFiles.fileSystem(remoteOut, conf);
       Path outDir = Staging.below(remoteOut, folder);
       String record = base + ".record.json";
-      if (keepComplete && outFs.exists(new Path(outDir, record))) {
+      if (!task.overwrites() && outFs.exists(new Path(outDir, record))) {
         for (String suffix : PreparedRun.outputSuffixes()) {
           RemoteFiles.downloadIfFile(
-              outFs, new Path(outDir, base + suffix), out.resolve(prefix(folder) + base + suffix));
+              outFs,
+              new Path(outDir, base + suffix),
+              out.resolve(InputNames.sibling(relative, suffix)));
         }
       }
       FileOutcome o = task.at(model, in, out, seeds).run(relative);
@@ -93,10 +90,10 @@ final class StagedFile {
       // as the local writer does: no old record may vouch for outputs being replaced, and a class
       // map of an earlier run with more classes must not stay beside the new outputs
       outFs.delete(new Path(outDir, record), false);
-      if (!Files.exists(out.resolve(prefix(folder) + base + ".classes.tif"))) {
+      if (!Files.exists(out.resolve(InputNames.sibling(relative, ".classes.tif")))) {
         outFs.delete(new Path(outDir, base + ".classes.tif"), false);
       }
-      java.nio.file.Path localRecord = out.resolve(prefix(folder) + record);
+      java.nio.file.Path localRecord = out.resolve(InputNames.sibling(relative, ".record.json"));
       for (java.nio.file.Path p : files(out)) {
         if (!p.equals(localRecord)) {
           RemoteFiles.upload(outFs, p, Staging.below(remoteOut, slashed(out.relativize(p))));
@@ -181,14 +178,5 @@ final class StagedFile {
 
   private static String slashed(java.nio.file.Path relative) {
     return relative.toString().replace(relative.getFileSystem().getSeparator(), "/");
-  }
-
-  private static String prefix(String folder) {
-    return folder.isEmpty() ? "" : folder + "/";
-  }
-
-  /** The output name of an input file name: the part before the last dot (as the run's). */
-  private static String baseName(String name) {
-    return SegmentationFiles.baseName(java.nio.file.Path.of(name));
   }
 }

@@ -115,7 +115,6 @@ final class StagedRun {
                   out.toString(),
                   seeds == null ? null : seeds.toString(),
                   modelName,
-                  s.overwrite(),
                   new HadoopConf(conf));
           List<FileOutcome> outcomes =
               SparkBatchJob.distribute(sc, run, staging, filesPerPartition, failOncePartition, err);
@@ -277,17 +276,12 @@ final class StagedRun {
         continue;
       }
       String relative = files.get(i);
-      int slash = relative.lastIndexOf('/');
-      String folder = slash < 0 ? "" : relative.substring(0, slash + 1);
-      String base =
-          io.github.cleave.io.SegmentationFiles.baseName(
-              java.nio.file.Path.of(relative.substring(slash + 1)));
       List<String> suffixes =
           i < PreparedRun.SHEET_FILES
               ? List.of(".objects.csv", ".overlay.png")
               : List.of(".objects.csv");
       for (String suffix : suffixes) {
-        String name = folder + base + suffix;
+        String name = InputNames.sibling(relative, suffix);
         if (suffix.equals(".overlay.png")) { // a missing picture leaves its tile out, as locally
           RemoteFiles.downloadIfFile(fs, new Path(out, name), mirror.resolve(name));
         } else {

@@ -6,11 +6,9 @@ import org.apache.hadoop.fs.Path;
 /**
  * Where a staged run's files live, for its tasks: the input, output and seeds folders as qualified
  * Hadoop paths (seeds null if none), the model as the user named it (recorded in each file's
- * record), whether complete outputs are recomputed, and the driver's Hadoop configuration.
- * Immutable, serialisable.
+ * record), and the driver's Hadoop configuration. Immutable, serialisable.
  */
-record Staging(
-    String in, String out, String seeds, String model, boolean overwrite, HadoopConf conf)
+record Staging(String in, String out, String seeds, String model, HadoopConf conf)
     implements Serializable {
 
   Path inPath() {
