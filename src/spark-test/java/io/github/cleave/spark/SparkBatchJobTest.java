@@ -9,9 +9,6 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
-import org.apache.spark.api.java.JavaSparkContext;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -20,31 +17,7 @@ import org.junit.jupiter.api.io.TempDir;
  * unusable files: the same outputs and statuses, resume and {@code --overwrite} as in {@code
  * batch}, the refusals, and a job Spark gives up on.
  */
-class SparkBatchJobTest {
-  static final int SIZE = 128;
-
-  @TempDir static Path shared;
-  static Path model;
-  static Path in;
-  static List<String> good;
-  static JavaSparkContext sc;
-  static SparkFixtures.MixedFolder fixture;
-
-  @BeforeAll
-  static void start() throws IOException {
-    fixture = SparkFixtures.mixedFolder(shared, SIZE, "local[2]");
-    model = fixture.model();
-    in = fixture.in();
-    good = fixture.good();
-    sc = fixture.sc();
-  }
-
-  @AfterAll
-  static void stop() {
-    if (fixture != null) {
-      fixture.stop();
-    }
-  }
+class SparkBatchJobTest extends MixedFolderJobTest {
 
   @Test
   void theJobWritesWhatBatchWritesAndFailsTheSameFiles(@TempDir Path tmp) throws IOException {

@@ -15,9 +15,6 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.apache.spark.api.java.JavaSparkContext;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -28,31 +25,7 @@ import org.junit.jupiter.api.io.TempDir;
  * folder of good and unusable files: the same outputs byte for byte except times and the paths the
  * run files name; resume, {@code --overwrite}, leftover temporary files and the folder's marker.
  */
-class SparkStagedRunTest {
-  static final int SIZE = 128;
-
-  @TempDir static Path shared;
-  static Path model;
-  static Path in;
-  static List<String> good;
-  static JavaSparkContext sc;
-  static SparkFixtures.MixedFolder fixture;
-
-  @BeforeAll
-  static void start() throws IOException {
-    fixture = SparkFixtures.mixedFolder(shared, SIZE, "local[2]");
-    model = fixture.model();
-    in = fixture.in();
-    good = fixture.good();
-    sc = fixture.sc();
-  }
-
-  @AfterAll
-  static void stop() {
-    if (fixture != null) {
-      fixture.stop();
-    }
-  }
+class SparkStagedRunTest extends MixedFolderJobTest {
 
   @Test
   void urlsGiveTheOutputsOfPlainPaths(@TempDir Path tmp) throws IOException {
