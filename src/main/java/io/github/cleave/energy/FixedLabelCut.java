@@ -132,8 +132,44 @@ public final class FixedLabelCut {
     Arcs arcs = new Arcs(features, parameters, fixed);
     boolean useCompact = compact != null ? compact : prefersCompact(n, free, directions);
     return useCompact
-        ? buildCompact(fixed, nodes, free, foregroundCost, backgroundCost, arcs)
+        ? buildCompact(fixed, nodes, free, foregroundCost, backgroundCost, false, arcs)
         : buildGrid(features, fixed, nodes, free, foregroundCost, backgroundCost, arcs);
+  }
+
+  /**
+   * As {@link #build(Raster, float[], float[], SeedLabels, EnergyParameters)} when the free voxels
+   * are already known: {@code free[i]} (ascending, each labelled 0 in {@code labels}) with regional
+   * costs {@code foregroundCost[i]} and {@code backgroundCost[i]}; every other voxel must be fixed.
+   * Gives the same graph, mask and flow as the full form without a pass over the image, always on
+   * compressed adjacency; for a band around a cut, whose voxels are few.
+   *
+   * @throws IllegalArgumentException if the arrays' lengths differ or the neighbourhood does not
+   *     fit the image
+   */
+  public static FixedLabelCut buildListed(
+      Raster features,
+      int[] free,
+      float[] foregroundCost,
+      float[] backgroundCost,
+      SeedLabels labels,
+      EnergyParameters parameters) {
+    if (foregroundCost.length != free.length
+        || backgroundCost.length != free.length
+        || labels.size() != features.size()) {
+      throw new IllegalArgumentException(
+          String.format(
+              Locale.ROOT,
+              "energy: %d free voxels, %d and %d regional costs; %d voxels, %d labels",
+              free.length,
+              foregroundCost.length,
+              backgroundCost.length,
+              features.size(),
+              labels.size()));
+    }
+    CutProblem.checkFits(features, parameters.neighborhood());
+    Arcs arcs = new Arcs(features, parameters, labels.labels());
+    return buildCompact(
+        labels.labels(), free, free.length, foregroundCost, backgroundCost, true, arcs);
   }
 
   private static FixedLabelCut buildGrid(
@@ -149,7 +185,8 @@ public final class FixedLabelCut {
     int[] source = new int[free];
     int[] sink = new int[free];
     for (int i = 0; i < free; i++) {
-      long[] terminals = arcs.of(nodes[i], backgroundCost, foregroundCost, caps, i * directions);
+      int p = nodes[i];
+      long[] terminals = arcs.of(p, backgroundCost[p], foregroundCost[p], caps, i * directions);
       source[i] = (int) Math.min(Integer.MAX_VALUE, terminals[0]);
       sink[i] = (int) Math.min(Integer.MAX_VALUE, terminals[1]);
     }
@@ -160,12 +197,17 @@ public final class FixedLabelCut {
     return new FixedLabelCut(fixed, solver, null, nodes, free, 0);
   }
 
+  /**
+   * The graph on compressed adjacency: free voxel {@code nodes[i]} is node i, then the source and
+   * the sink. The regional costs are indexed by node when {@code costPerNode}, else by voxel.
+   */
   private static FixedLabelCut buildCompact(
       byte[] fixed,
       int[] nodes,
       int free,
       float[] foregroundCost,
       float[] backgroundCost,
+      boolean costPerNode,
       Arcs arcs) {
     int directions = arcs.directions;
     int[] index = new int[fixed.length]; // node number of each free voxel
@@ -182,7 +224,8 @@ public final class FixedLabelCut {
     long constant = 0;
     for (int i = 0; i < free; i++) {
       int p = nodes[i];
-      long[] terminals = arcs.of(p, backgroundCost, foregroundCost, row, 0);
+      int c = costPerNode ? i : p;
+      long[] terminals = arcs.of(p, backgroundCost[c], foregroundCost[c], row, 0);
       for (int k = 0; k < directions; k++) {
         if (row[k] > 0) {
           graph.addArc(i, index[p + arcs.step(k)], row[k]);
@@ -267,9 +310,9 @@ public final class FixedLabelCut {
     /**
      * Fills {@code out[offset + k]} with the capacity towards the free neighbour in direction k (0
      * when the neighbour is fixed or outside the grid) and returns {source, sink} capacities of
-     * {@code p}; the returned array is reused by the next call.
+     * {@code p}, whose regional costs are given; the returned array is reused by the next call.
      */
-    long[] of(int p, float[] backgroundCost, float[] foregroundCost, int[] out, int offset) {
+    long[] of(int p, float backgroundCost, float foregroundCost, int[] out, int offset) {
       int row = p / width; // one division in a plane, two in a stack
       int x = p - row * width;
       int z = depth == 1 ? 0 : row / height;
@@ -280,8 +323,8 @@ public final class FixedLabelCut {
               && y >= reach
               && y < height - reach
               && (depth == 1 || (z >= reach && z < depth - reach));
-      long toSource = CapacityScale.toCapacity(backgroundCost[p]);
-      long toSink = CapacityScale.toCapacity(foregroundCost[p]);
+      long toSource = CapacityScale.toCapacity(backgroundCost);
+      long toSink = CapacityScale.toCapacity(foregroundCost);
       for (int k = 0; k < directions; k++) {
         if (!inside && !neighbourInside(x, y, z, k)) {
           out[offset + k] = 0;

@@ -8,6 +8,7 @@ import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import java.util.Arrays;
 import java.util.concurrent.CancellationException;
+import java.util.function.Supplier;
 
 /**
  * Places the edges of a finished cut at half maximum: one more cut in a thin band around the cut's
@@ -162,51 +163,76 @@ final class EdgeRefinement {
     for (int c = 0; c < channels; c++) {
       values[c] = features.channel(c);
     }
-    float[][] costs = new float[2][n];
     byte[] seedLabels = seeds.labels();
     byte[] hard = new byte[n]; // seeds, and the cut's labels; band voxels freed below
     for (int p = 0; p < n; p++) {
       byte cut = (byte) (mask[p] != 0 ? SeedLabels.FOREGROUND : SeedLabels.BACKGROUND);
       hard[p] = seedLabels[p] != 0 ? seedLabels[p] : cut;
     }
+    int[] free = new int[bandVoxels.length]; // the band voxels re-decided, ascending
+    float[] foregroundCost = new float[bandVoxels.length]; // D_p, by position in free
+    float[] backgroundCost = new float[bandVoxels.length];
+    int freeCount = 0;
     for (int i = 0; i < bandVoxels.length; i++) {
       int p = bandVoxels[i];
       int so = objectSource[i];
       int sb = backgroundSource[i];
-      boolean free = seedLabels[p] == 0 && so >= 0 && sb >= 0;
+      boolean isFree = seedLabels[p] == 0 && so >= 0 && sb >= 0;
       double fg = 0;
       double bg = 0;
-      for (int c = 0; c < channels && free; c++) {
+      for (int c = 0; c < channels && isFree; c++) {
         double v = values[c][p];
         double a = v - levels.object[c][levels.objectIndex[i]];
         double b = v - levels.background[c][levels.backgroundIndex[i]];
         double s2 = 2 * levels.variance[c];
-        free = s2 > 0;
+        isFree = s2 > 0;
         fg += a * a / s2;
         bg += b * b / s2;
       }
-      if (free) {
+      if (isFree) {
         double min = Math.min(fg, bg);
-        costs[0][p] = (float) (fg - min);
-        costs[1][p] = (float) (bg - min);
+        free[freeCount] = p;
+        foregroundCost[freeCount] = (float) (fg - min);
+        backgroundCost[freeCount] = (float) (bg - min);
+        freeCount++;
         hard[p] = 0;
       }
     }
     SeedLabels constraints = new SeedLabels(w, h, d, hard);
     double bandMs = Segmenter.millisSince(start);
-    PlaneCuts.Cutter cutter = (f, c, fixed) -> cutFree(f, c, fixed, parameters);
-    Segmenter.CutOutcome cut =
-        planes
-            ? PlaneCuts.cutEachPlane(features, costs, constraints, cutter)
-            : cutter.cut(features, costs, constraints);
+    Segmenter.CutOutcome cut;
+    if (planes) {
+      float[][] costs = new float[2][n];
+      for (int i = 0; i < freeCount; i++) {
+        costs[0][free[i]] = foregroundCost[i];
+        costs[1][free[i]] = backgroundCost[i];
+      }
+      cut =
+          PlaneCuts.cutEachPlane(
+              features,
+              costs,
+              constraints,
+              (f, c, fixed) -> cut(() -> FixedLabelCut.build(f, c[0], c[1], fixed, parameters)));
+    } else {
+      int listed = freeCount;
+      cut =
+          cut(
+              () ->
+                  FixedLabelCut.buildListed(
+                      features,
+                      Arrays.copyOf(free, listed),
+                      Arrays.copyOf(foregroundCost, listed),
+                      Arrays.copyOf(backgroundCost, listed),
+                      constraints,
+                      parameters));
+    }
     return new Segmenter.CutOutcome(cut.mask(), cut.flow(), bandMs + cut.buildMs(), cut.solveMs());
   }
 
-  /** The cut of the voxels that {@code fixed} leaves free (0), the others keeping their labels. */
-  private static Segmenter.CutOutcome cutFree(
-      Raster features, float[][] costs, SeedLabels fixed, EnergyParameters parameters) {
+  /** Builds and solves an edge cut, timing both. */
+  private static Segmenter.CutOutcome cut(Supplier<FixedLabelCut> build) {
     long start = System.nanoTime();
-    FixedLabelCut problem = FixedLabelCut.build(features, costs[0], costs[1], fixed, parameters);
+    FixedLabelCut problem = build.get();
     double buildMs = Segmenter.millisSince(start);
     MaxFlowResult result = problem.solve();
     if (result.status() == SolveStatus.INTERRUPTED) {

@@ -8,6 +8,7 @@ import io.github.cleave.image.PixelKind;
 import io.github.cleave.image.Raster;
 import io.github.cleave.image.SeedLabels;
 import io.github.cleave.image.VoxelSize;
+import java.util.Arrays;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 
@@ -79,6 +80,29 @@ class FixedLabelCutTest {
       assertThat(wholeResult.flowValue() - part.flowValue(partResult))
           .isEqualTo(fixedBoundary(image, fixed, parameters));
     }
+    int[] free = new int[n]; // the listed form: free voxels and their costs given
+    float[] fgListed = new float[n];
+    float[] bgListed = new float[n];
+    int count = 0;
+    for (int p = 0; p < n; p++) {
+      if (fixed[p] == 0) {
+        fgListed[count] = fgCost[p];
+        bgListed[count] = bgCost[p];
+        free[count++] = p;
+      }
+    }
+    FixedLabelCut listed =
+        FixedLabelCut.buildListed(
+            image,
+            Arrays.copyOf(free, count),
+            Arrays.copyOf(fgListed, count),
+            Arrays.copyOf(bgListed, count),
+            labels,
+            parameters);
+    MaxFlowResult listedResult = listed.solve();
+    assertThat(listed.mask(listedResult)).isEqualTo(CutProblem.mask(wholeResult));
+    assertThat(wholeResult.flowValue() - listed.flowValue(listedResult))
+        .isEqualTo(fixedBoundary(image, fixed, parameters));
   }
 
   /** Σ B_pq over neighbour pairs with p fixed foreground and q fixed background, by the formula. */
