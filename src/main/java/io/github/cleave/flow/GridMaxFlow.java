@@ -415,11 +415,16 @@ public final class GridMaxFlow implements MaxFlowSolver {
     checkLength(sinkCaps, "sink capacities");
     checkNotSolved();
     GridLayout g = layout;
+    boolean initial = capacity == null && search.terminalsZero(); // a row at a time
     int node = 0;
     for (int z = 0; z < g.depth; z++) {
       for (int y = 0; y < g.height; y++) {
         int p = g.padded(0, y, z);
-        for (int x = 0; x < g.width; x++, p++, node++) {
+        if (initial && search.setInitialTerminals(p, sourceCaps, sinkCaps, node, g.width)) {
+          node += g.width;
+          continue;
+        }
+        for (int x = 0; x < g.width; x++, p++, node++) { // throws at a negative capacity
           storeTerminals(node, p, sourceCaps[node], sinkCaps[node]);
         }
       }

@@ -44,6 +44,7 @@ final class GridSearch {
   private final IntFifo orphans; // nodes whose parent arc was saturated, parent == ORPHAN
   private int time; // incremented at every augmentation
   private boolean pristine = true; // tree, mark, dist and active as constructed: never searched
+  private boolean terminalsZero = true; // no terminal residual was ever changed
 
   // Path found by the growth stage: arc pathTail -> pathTail + offset[pathDirection], S to T.
   private int pathTail;
@@ -88,6 +89,7 @@ final class GridSearch {
    * @throws IllegalArgumentException if the net residual leaves the int range
    */
   long changeTerminal(int p, long dSource, long dSink) {
+    terminalsZero = false;
     int t = terminal[p];
     long rs = Math.max(t, 0) + dSource;
     long rt = Math.max(-(long) t, 0) + dSink;
@@ -105,6 +107,40 @@ final class GridSearch {
     terminal[p] = (int) net;
     flow += m;
     return m;
+  }
+
+  /** Whether every terminal residual is still 0, as in a new network. */
+  boolean terminalsZero() {
+    return terminalsZero;
+  }
+
+  /**
+   * {@link #changeTerminal} for the {@code count} nodes from padded node {@code p} on, with {@code
+   * dSource = sourceCaps[from + i]} and {@code dSink = sinkCaps[from + i]}, while every terminal
+   * residual of these nodes is 0 (true of every row while {@link #terminalsZero} was true at the
+   * start of a pass that sets each row once): then the residual is the difference and the flow
+   * grows by the smaller, with no overflow possible. One plain loop over the row.
+   *
+   * @return false, with nothing changed, if a capacity of the row is negative
+   */
+  boolean setInitialTerminals(int p, int[] sourceCaps, int[] sinkCaps, int from, int count) {
+    int signs = 0;
+    for (int i = from; i < from + count; i++) {
+      signs |= sourceCaps[i] | sinkCaps[i];
+    }
+    if (signs < 0) {
+      return false;
+    }
+    long common = 0;
+    for (int i = 0; i < count; i++) {
+      int cs = sourceCaps[from + i];
+      int ct = sinkCaps[from + i];
+      terminal[p + i] = cs - ct;
+      common += Math.min(cs, ct);
+    }
+    flow += common;
+    terminalsZero = false; // the rows not set yet are still 0: the caller may go on row by row
+    return true;
   }
 
   /**

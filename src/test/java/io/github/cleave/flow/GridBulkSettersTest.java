@@ -212,6 +212,53 @@ class GridBulkSettersTest {
   }
 
   @Test
+  void wholeGridTerminalSetterEqualsNodeByNodeAndAddsWhenCalledAgain() {
+    SplittableRandom random = new SplittableRandom(17L);
+    for (int trial = 0; trial < 120; trial++) {
+      Neighborhood nb = ALL[trial % ALL.length];
+      int w = 1 + random.nextInt(12);
+      int h = 1 + random.nextInt(12);
+      int d = nb.isThreeDimensional() ? 1 + random.nextInt(5) : 1;
+      int n = w * h * d;
+      GridMaxFlow bulk = new GridMaxFlow(w, h, d, nb, false); // its terminals start at zero
+      GridMaxFlow single = new GridMaxFlow(w, h, d, nb, true);
+      int[] caps = new int[n];
+      for (int k = 0; k < nb.size(); k += 2) {
+        for (int p = 0; p < n; p++) {
+          caps[p] = random.nextInt(30);
+        }
+        bulk.setSymmetricNeighborCapacities(k, caps);
+        single.setSymmetricNeighborCapacities(k, caps);
+      }
+      int[][] source = new int[2][n];
+      int[][] sink = new int[2][n];
+      int calls = 1 + random.nextInt(2); // a second call adds to the first (not retained)
+      for (int c = 0; c < calls; c++) {
+        for (int p = 0; p < n; p++) {
+          source[c][p] = random.nextInt(60);
+          sink[c][p] = random.nextInt(60);
+        }
+        bulk.setTerminalCapacities(source[c], sink[c]);
+      }
+      for (int p = 0; p < n; p++) {
+        single.setTerminalCapacities(p, source[0][p] + source[1][p], sink[0][p] + sink[1][p]);
+      }
+      assertSameNetworkAndCut(bulk, single, n, nb);
+    }
+  }
+
+  @Test
+  void wholeGridTerminalSetterRefusesNegativeCapacities() {
+    GridMaxFlow solver = new GridMaxFlow(4, 3, 1, Neighborhood.N8, false);
+    int[] source = new int[12];
+    int[] sink = new int[12];
+    sink[9] = -5;
+    assertThatThrownBy(() -> solver.setTerminalCapacities(source, sink))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessageContaining("node 9");
+  }
+
+  @Test
   void bulkTerminalChangesAfterASolveEqualChangesOneByOne() {
     SplittableRandom random = new SplittableRandom(99L);
     for (int trial = 0; trial < 120; trial++) {
