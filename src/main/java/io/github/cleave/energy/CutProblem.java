@@ -60,7 +60,9 @@ public final class CutProblem {
       source[p] = CapacityScale.toCapacity(backgroundCost[p]);
       sink[p] = CapacityScale.toCapacity(foregroundCost[p]);
     }
-    for (int p = 0; p < seedLabels.length; p++) {
+    for (int p = SeedLabels.nextLabelled(seedLabels, 0);
+        p < seedLabels.length;
+        p = SeedLabels.nextLabelled(seedLabels, p + 1)) {
       if (seedLabels[p] == SeedLabels.FOREGROUND || seedLabels[p] == SeedLabels.BACKGROUND) {
         setTerminals(p);
       }

@@ -19,10 +19,9 @@ public final class Raster {
   private final float[][] channels; // channels[c].length == width * height * depth
   private final VoxelSize voxelSize;
   private final PixelKind kind;
-  // wholeNumberRange per channel, UNKNOWN until first asked: computed at most a few times, since
-  // racing threads compute the same int (an idempotent cache, as String's hash code)
-  private final int[] wholeNumberRanges;
-  private static final int UNKNOWN = Integer.MIN_VALUE;
+  // per channel, null until first asked: computed at most a few times, since racing threads
+  // compute equal values and publish them safely (a record's fields are final)
+  private final WholeNumbers[] wholeNumbers;
 
   /** Whole numbers up to this magnitude are exact in float, int and double alike. */
   private static final float EXACT_INTEGER = 1 << 24;
@@ -79,8 +78,7 @@ public final class Raster {
     this.channels = channels.clone();
     this.voxelSize = voxelSize;
     this.kind = kind;
-    this.wholeNumberRanges = new int[channels.length];
-    java.util.Arrays.fill(wholeNumberRanges, UNKNOWN);
+    this.wholeNumbers = new WholeNumbers[channels.length];
   }
 
   /** A single-channel image. */
@@ -131,27 +129,42 @@ public final class Raster {
    * contrast scale use it to work on whole numbers by table look-up.
    */
   public int wholeNumberRange(int c) {
-    float[] values = channel(c);
-    int range = wholeNumberRanges[c];
-    if (range == UNKNOWN) {
-      range = wholeNumberRange(values);
-      wholeNumberRanges[c] = range;
-    }
-    return range;
+    return wholeNumbers(c).range();
   }
 
-  private static int wholeNumberRange(float[] values) {
-    int min = Integer.MAX_VALUE;
-    int max = Integer.MIN_VALUE;
-    for (float v : values) {
-      int i = (int) v;
-      if (v != i || !(Math.abs(v) <= EXACT_INTEGER)) {
-        return -1; // NaN, infinite, too large, or a fraction
-      }
-      min = Math.min(min, i);
-      max = Math.max(max, i);
+  /**
+   * The smallest value of channel {@code c} when {@link #wholeNumberRange} is at least 0 (so the
+   * largest is that plus the range), found by the same pass and kept likewise; 0 otherwise.
+   */
+  public int wholeNumberMinimum(int c) {
+    return wholeNumbers(c).minimum();
+  }
+
+  private WholeNumbers wholeNumbers(int c) {
+    float[] values = channel(c);
+    WholeNumbers found = wholeNumbers[c];
+    if (found == null) {
+      found = WholeNumbers.of(values);
+      wholeNumbers[c] = found;
     }
-    return values.length == 0 ? 0 : max - min;
+    return found;
+  }
+
+  /** What {@link #wholeNumberRange} and {@link #wholeNumberMinimum} report for one channel. */
+  private record WholeNumbers(int minimum, int range) {
+    static WholeNumbers of(float[] values) {
+      int min = Integer.MAX_VALUE;
+      int max = Integer.MIN_VALUE;
+      for (float v : values) {
+        int i = (int) v;
+        if (v != i || !(Math.abs(v) <= EXACT_INTEGER)) {
+          return new WholeNumbers(0, -1); // NaN, infinite, too large, or a fraction
+        }
+        min = Math.min(min, i);
+        max = Math.max(max, i);
+      }
+      return values.length == 0 ? new WholeNumbers(0, 0) : new WholeNumbers(min, max - min);
+    }
   }
 
   public VoxelSize voxelSize() {

@@ -1,5 +1,8 @@
 package io.github.cleave.image;
 
+import java.lang.invoke.MethodHandles;
+import java.lang.invoke.VarHandle;
+import java.nio.ByteOrder;
 import java.util.Arrays;
 import java.util.Locale;
 
@@ -20,6 +23,10 @@ public final class SeedLabels {
 
   /** Largest class label supported. */
   public static final int MAX_CLASS = 255;
+
+  /** Eight labels as one word, to pass over unlabelled voxels eight at a time. */
+  private static final VarHandle WORD =
+      MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
 
   private final int width;
   private final int height;
@@ -83,15 +90,36 @@ public final class SeedLabels {
     return countsPerLabel().length - 1;
   }
 
+  /**
+   * The first voxel at or after {@code from} with a label other than 0, or {@code labels.length} if
+   * there is none. Unlabelled voxels are passed over eight at a time, so a loop over the seeds,
+   * {@code for (p = nextLabelled(l, 0); p < l.length; p = nextLabelled(l, p + 1))}, costs about an
+   * eighth of a pass over the image plus the seeds themselves (seeds are a few strokes).
+   */
+  public static int nextLabelled(byte[] labels, int from) {
+    int p = from;
+    while (p < labels.length && (p & 7) != 0) { // to a word boundary
+      if (labels[p] != 0) {
+        return p;
+      }
+      p++;
+    }
+    while (p + 8 <= labels.length && (long) WORD.get(labels, p) == 0) {
+      p += 8;
+    }
+    while (p < labels.length && labels[p] == 0) {
+      p++;
+    }
+    return p;
+  }
+
   /** Number of seed voxels per label, indexed by label 0..maxLabel. */
   public long[] countsPerLabel() {
     // seeds are sparse: counting only the labelled voxels avoids a chain of increments of one
     // counter (label 0) that would wait for each other; label 0 is what remains
     long[] counts = new long[256];
-    for (byte b : labels) {
-      if (b != 0) {
-        counts[b & 0xff]++;
-      }
+    for (int p = nextLabelled(labels, 0); p < labels.length; p = nextLabelled(labels, p + 1)) {
+      counts[labels[p] & 0xff]++;
     }
     long labelled = 0;
     for (int label = 1; label < counts.length; label++) {

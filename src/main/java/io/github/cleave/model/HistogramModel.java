@@ -1,6 +1,7 @@
 package io.github.cleave.model;
 
 import io.github.cleave.image.Raster;
+import io.github.cleave.image.SeedLabels;
 import java.util.Locale;
 
 /**
@@ -133,7 +134,9 @@ public final class HistogramModel implements LikelihoodModel {
     // Four partial counts per class, taken in turn, so that runs of equal bins (common: the
     // background is flat) do not make every increment wait for the one before.
     int[][] partial = new int[classes][4 * bins];
-    for (int i = 0; i < values.length; i++) {
+    for (int i = SeedLabels.nextLabelled(labels, 0);
+        i < labels.length;
+        i = SeedLabels.nextLabelled(labels, i + 1)) {
       int label = labels[i] & 0xff;
       float v = values[i];
       if (label == 0 || label > classes || !Float.isFinite(v)) {

@@ -154,6 +154,9 @@ public final class ModelLearner {
     if (kind == PixelKind.GREY8 || kind == PixelKind.RGB) {
       low = 0;
       high = 255;
+    } else if (features.wholeNumberRange(0) >= 0) { // kept by the raster: no pass here
+      low = features.wholeNumberMinimum(0);
+      high = low + features.wholeNumberRange(0);
     } else {
       low = Double.POSITIVE_INFINITY;
       high = Double.NEGATIVE_INFINITY;
@@ -163,6 +166,8 @@ public final class ModelLearner {
           high = Math.max(high, v);
         }
       }
+    }
+    if (kind != PixelKind.GREY8 && kind != PixelKind.RGB) {
       if (kind == PixelKind.GREY16 && high - low + 1 < bins) {
         bins = (int) Math.max(1, Math.floor(high - low) + 1);
       }

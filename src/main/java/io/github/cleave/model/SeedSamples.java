@@ -1,6 +1,7 @@
 package io.github.cleave.model;
 
 import io.github.cleave.image.Raster;
+import io.github.cleave.image.SeedLabels;
 
 /**
  * The feature vectors of the seed voxels, one flat row-major array {@code x[s * d + i]} per class,
@@ -16,7 +17,9 @@ final class SeedSamples {
     int d = features.channelCount();
     float[][] ch = channels(features);
     long[] counts = new long[classes];
-    for (int v = 0; v < labels.length; v++) {
+    for (int v = SeedLabels.nextLabelled(labels, 0);
+        v < labels.length;
+        v = SeedLabels.nextLabelled(labels, v + 1)) {
       int label = labels[v] & 0xff;
       if (label != 0 && label <= classes && finite(ch, d, v)) {
         counts[label - 1]++;
@@ -36,7 +39,9 @@ final class SeedSamples {
     for (int c = 0; c < classes; c++) {
       out[c] = new double[(int) Math.min(counts[c], limit) * d];
     }
-    for (int v = 0; v < labels.length; v++) {
+    for (int v = SeedLabels.nextLabelled(labels, 0);
+        v < labels.length;
+        v = SeedLabels.nextLabelled(labels, v + 1)) {
       int label = labels[v] & 0xff;
       if (label == 0 || label > classes || !finite(ch, d, v)) {
         continue;

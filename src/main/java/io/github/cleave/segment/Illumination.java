@@ -201,8 +201,10 @@ public final class Illumination {
   private static double median(float[] values, SeedLabels seeds, int label) {
     byte[] labels = seeds.labels();
     int count = 0;
-    for (byte b : labels) {
-      if (b == label) {
+    for (int i = SeedLabels.nextLabelled(labels, 0);
+        i < labels.length;
+        i = SeedLabels.nextLabelled(labels, i + 1)) {
+      if (labels[i] == label) {
         count++;
       }
     }
@@ -211,7 +213,9 @@ public final class Illumination {
     }
     float[] picked = new float[count];
     int j = 0;
-    for (int i = 0; i < labels.length; i++) {
+    for (int i = SeedLabels.nextLabelled(labels, 0);
+        i < labels.length;
+        i = SeedLabels.nextLabelled(labels, i + 1)) {
       if (labels[i] == label) {
         picked[j++] = values[i];
       }

@@ -305,7 +305,9 @@ public final class Segmenter {
   private static byte[] foregroundSeedMask(SeedLabels seeds) {
     byte[] labels = seeds.labels();
     byte[] marks = new byte[labels.length];
-    for (int i = 0; i < labels.length; i++) {
+    for (int i = SeedLabels.nextLabelled(labels, 0);
+        i < labels.length;
+        i = SeedLabels.nextLabelled(labels, i + 1)) {
       if (labels[i] == SeedLabels.FOREGROUND) {
         marks[i] = (byte) 255;
       }

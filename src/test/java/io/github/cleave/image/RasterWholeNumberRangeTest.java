@@ -9,7 +9,7 @@ import org.junit.jupiter.api.Test;
  * {@link Raster#wholeNumberRange} against a plain reference over random channels: whole numbers of
  * every magnitude around the exact-float limit 2²⁴ (IEEE 754 single precision has a 24-bit
  * significand: the standard, from memory), fractions, NaN and infinities; and the kept value is the
- * same on every call.
+ * same on every call. {@link Raster#wholeNumberMinimum} is the plain minimum where the range holds.
  */
 class RasterWholeNumberRangeTest {
   private static final VoxelSize PIXELS = new VoxelSize(1, 1, 1, "pixel", true);
@@ -36,6 +36,13 @@ class RasterWholeNumberRangeTest {
       int expected = reference(values);
       assertThat(image.wholeNumberRange(0)).as("trial %d", trial).isEqualTo(expected);
       assertThat(image.wholeNumberRange(0)).isEqualTo(expected);
+      if (expected >= 0) { // the smallest value, found by the same pass
+        float min = Float.POSITIVE_INFINITY;
+        for (float v : values) {
+          min = Math.min(min, v);
+        }
+        assertThat(image.wholeNumberMinimum(0)).as("trial %d", trial).isEqualTo((int) min);
+      }
     }
   }
 
