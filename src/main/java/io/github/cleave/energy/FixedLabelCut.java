@@ -42,7 +42,7 @@ public final class FixedLabelCut {
   static final int COMPACT_BYTES_PER_ARC = 52;
 
   /** Bytes per voxel of the grid solver beyond its residual arcs (terminal and search state). */
-  private static final int GRID_BYTES_PER_NODE = 18;
+  private static final int GRID_BYTES_PER_NODE = 22;
 
   private final byte[] fixed;
   private final GridMaxFlow grid; // exactly one of grid and compact is set

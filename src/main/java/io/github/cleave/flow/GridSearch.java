@@ -13,8 +13,9 @@ import java.util.BitSet;
  * <p>Invariants between the stages: every node of S has an unsaturated path from the source along
  * its parent arcs (residual of parent -> child > 0, a root has terminal residual > 0), every node
  * of T one to the sink; a node's parent is in its own tree; orphans (parent == ORPHAN) are queued;
- * every tree node that may have a free or opposite-tree neighbour over an unsaturated arc is
- * active.
+ * every tree node that may have a free or opposite-tree neighbour over an unsaturated arc is active
+ * (queued for its tree). A solve ends when no node of S is active; T may keep active nodes, which a
+ * later re-solve grows first.
  */
 final class GridSearch {
   static final byte FREE = 0;
@@ -40,7 +41,9 @@ final class GridSearch {
   final byte[] parent; // direction k towards the parent, TERMINAL_PARENT, ORPHAN, or NO_PARENT
   private final int[] mark; // time at which dist was last known exact; <= time
   private final int[] dist; // distance (arcs) to the tree's terminal, valid if mark == time
-  private final ActiveQueue active; // nodes whose neighbourhood growth must scan
+  private final ActiveQueue activeSource; // nodes of S whose neighbourhood growth must scan
+  private final ActiveQueue activeSink; // likewise of T
+  private boolean sinkTurn; // whether the next growth is T's (the trees take turns)
   private final IntFifo orphans; // nodes whose parent arc was saturated, parent == ORPHAN
   private int time; // incremented at every augmentation
   private boolean pristine = true; // tree, mark, dist and active as constructed: never searched
@@ -65,7 +68,8 @@ final class GridSearch {
     this.parent = new byte[n];
     this.mark = new int[n];
     this.dist = new int[n];
-    this.active = new ActiveQueue(n);
+    this.activeSource = new ActiveQueue(n);
+    this.activeSink = new ActiveQueue(n);
     this.orphans = new IntFifo(1024);
   }
 
@@ -223,7 +227,8 @@ final class GridSearch {
       Arrays.fill(tree, FREE);
       Arrays.fill(mark, 0);
       Arrays.fill(dist, 0);
-      active.clear();
+      activeSource.clear();
+      activeSink.clear();
     }
     pristine = false;
     Arrays.fill(parent, NO_PARENT);
@@ -576,13 +581,26 @@ final class GridSearch {
   }
 
   private void activate(int p) {
-    active.add(p);
+    (tree[p] == SOURCE_TREE ? activeSource : activeSink).add(p);
   }
 
-  /** Removes and returns the next active node still in a tree, or -1 if none is left. */
+  /**
+   * Removes and returns the next active node, S and T taking turns, or -1 once no node of S is
+   * active: then S is closed under unsaturated arcs, so the flow is maximal and S is the set
+   * reachable from the source, whatever T still had to grow. Entries whose node has since left that
+   * tree are skipped (a node that joins a tree is queued for it then).
+   */
   private int nextActiveNode() {
-    for (int p = active.poll(); p >= 0; p = active.poll()) {
-      if (tree[p] != FREE) {
+    sinkTurn = !sinkTurn;
+    if (sinkTurn) {
+      for (int p = activeSink.poll(); p >= 0; p = activeSink.poll()) {
+        if (tree[p] == SINK_TREE) {
+          return p;
+        }
+      }
+    }
+    for (int p = activeSource.poll(); p >= 0; p = activeSource.poll()) {
+      if (tree[p] == SOURCE_TREE) {
         return p;
       }
     }
@@ -592,7 +610,7 @@ final class GridSearch {
   /** Bytes held by the arrays of the residual network and the search state. */
   long stateBytes() {
     long n = terminal.length;
-    return residual.bytes() + n * (4 + 1 + 1 + 4 + 4 + 4) + 4L * orphans.capacity();
+    return residual.bytes() + n * (4 + 1 + 1 + 4 + 4 + 4 + 4) + 4L * orphans.capacity();
   }
 
   /** Source side of the cut: the nodes of S, in public numbering. */
