@@ -107,7 +107,8 @@ public final class SparseGraphBuilder implements FlowArcSink {
   }
 
   /**
-   * Builds the solver. The builder may be reused afterwards; the solver does not share its arrays.
+   * Builds the solver. The builder may be reused afterwards: the solver shares the builder's arrays
+   * but reads only the arcs added so far, which later additions leave as they are.
    *
    * @throws IllegalStateException if the source or the sink has not been set
    * @throws IllegalArgumentException if the source and the sink are the same node
@@ -121,13 +122,9 @@ public final class SparseGraphBuilder implements FlowArcSink {
       throw new IllegalArgumentException(
           "the source and the sink are the same node (" + source + "); they must differ");
     }
-    return new SparseMaxFlow(
-        nodeCount,
-        source,
-        sink,
-        Arrays.copyOf(tails, arcCount),
-        Arrays.copyOf(heads, arcCount),
-        Arrays.copyOf(capacities, arcCount));
+    // The solver shares the arrays, no copy: it reads only the arcs added so far, which never
+    // change, and arcs added to the builder later go after them (or into grown copies).
+    return new SparseMaxFlow(nodeCount, source, sink, tails, heads, capacities, arcCount);
   }
 
   private void checkNode(int node, String role) {

@@ -59,6 +59,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
   private final int[] tails;
   private final int[] heads;
   private final int[] capacities;
+  private final int arcs; // input arcs: the first entries of tails, heads and capacities
   private final int[] forward; // CSR position of input arc i's forward residual arc; -1 for a loop
 
   // Residual network in CSR order: arcs of node u at first[u] .. first[u + 1] - 1.
@@ -85,14 +86,20 @@ public final class SparseMaxFlow implements MaxFlowSolver {
   private long generation;
   private boolean solved;
 
-  SparseMaxFlow(int nodeCount, int source, int sink, int[] tails, int[] heads, int[] capacities) {
+  /**
+   * The network of the first {@code arcs} entries of {@code tails}, {@code heads} and {@code
+   * capacities}, which the solver keeps (the arrays may be longer).
+   */
+  SparseMaxFlow(
+      int nodeCount, int source, int sink, int[] tails, int[] heads, int[] capacities, int arcs) {
     this.nodeCount = nodeCount;
     this.source = source;
     this.sink = sink;
     this.tails = tails;
     this.heads = heads;
     this.capacities = capacities;
-    int m = tails.length;
+    this.arcs = arcs;
+    int m = arcs;
     this.forward = new int[m];
     this.first = new int[nodeCount + 1];
     int loops = 0;
@@ -107,10 +114,10 @@ public final class SparseMaxFlow implements MaxFlowSolver {
     for (int u = 0; u < nodeCount; u++) {
       first[u + 1] += first[u];
     }
-    int arcs = 2 * (m - loops);
-    this.arcHead = new int[arcs];
-    this.sister = new int[arcs];
-    this.residual = new int[arcs];
+    int residualArcs = 2 * (m - loops);
+    this.arcHead = new int[residualArcs];
+    this.sister = new int[residualArcs];
+    this.residual = new int[residualArcs];
     int[] next = Arrays.copyOf(first, nodeCount);
     for (int i = 0; i < m; i++) {
       int u = tails[i];
@@ -151,13 +158,13 @@ public final class SparseMaxFlow implements MaxFlowSolver {
 
   /** Number of input arcs, self-loops included. */
   public int arcCount() {
-    return tails.length;
+    return arcs;
   }
 
   /** Bytes of solver state: residual network, retained input arcs and search state. */
   public long stateBytes() {
     return 4L * (arcHead.length + sister.length + residual.length)
-        + 4L * (tails.length * 4L)
+        + 4L * (tails.length * 3L + arcs)
         + 4L * first.length
         + (long) nodeCount * (1 + 4 + 4 + 4 + 4)
         + 4L * orphans.capacity();
@@ -167,7 +174,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
   public MaxFlowResult solve() {
     long start = System.nanoTime();
     generation++;
-    for (int i = 0; i < tails.length; i++) {
+    for (int i = 0; i < arcs; i++) {
       int a = forward[i];
       if (a >= 0) {
         residual[a] = capacities[i];
@@ -450,7 +457,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
       throw new IllegalStateException("checkCertificate() needs a solve first");
     }
     long[] net = new long[nodeCount]; // outflow minus inflow
-    for (int i = 0; i < tails.length; i++) {
+    for (int i = 0; i < arcs; i++) {
       int a = forward[i];
       if (a < 0) {
         continue;
@@ -506,7 +513,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
       }
     }
     long cut = 0;
-    for (int i = 0; i < tails.length; i++) {
+    for (int i = 0; i < arcs; i++) {
       if (reached.get(tails[i]) && !reached.get(heads[i])) {
         cut += capacities[i];
       }
@@ -545,7 +552,7 @@ public final class SparseMaxFlow implements MaxFlowSolver {
 
     @Override
     public void visitArcFlows(ArcFlowVisitor visitor) {
-      for (int i = 0; i < tails.length; i++) {
+      for (int i = 0; i < arcs; i++) {
         int a = forward[i];
         if (a >= 0) {
           long f = (long) capacities[i] - residual[a];
