@@ -73,12 +73,12 @@ import java.util.Locale;
  *
  * O(m n² |C|) in the worst case, with n nodes, m arcs and |C| the cost of the minimum cut, since
  * the number of augmentations is bounded by the flow value; in practice close to linear on
- * segmentation grids dominated by terminal costs. Memory per node for K neighbours: 2K + 22 bytes
+ * segmentation grids dominated by terminal costs. Memory per node for K neighbours: 2K + 18 bytes
  * while every neighbour capacity is at most 32767 (residuals are then stored 16 bits wide, see
- * {@link #capacityWidth()}), 4K + 22 bytes otherwise, plus 4K + 8 bytes when capacities are
- * retained; the dead padding adds a few percent on small grids. Long augmenting paths (strong
- * boundary weights, weak terminals) are this method's weak spot; push-relabel solvers are then
- * sometimes faster.
+ * {@link #capacityWidth()}), 4K + 18 bytes otherwise, 4 bytes more in either case while the trees
+ * take turns (the second queue), plus 4K + 8 bytes when capacities are retained; the dead padding
+ * adds a few percent on small grids. Long augmenting paths (strong boundary weights, weak
+ * terminals) are this method's weak spot; push-relabel solvers are then sometimes faster.
  *
  * <h2>Capacities, retained or not</h2>
  *

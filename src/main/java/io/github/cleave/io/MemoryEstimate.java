@@ -12,7 +12,7 @@ import java.util.Locale;
 final class MemoryEstimate {
   /**
    * Heap per voxel (one position in x, y, z, all channels together) for the segmentation after
-   * reading: the max-flow state of the grid solver (about 30 to 54 bytes per node, see the
+   * reading: the max-flow state of the grid solver (about 26 to 54 bytes per node, see the
    * benchmark table in DEVELOPERS.md), the terminal costs and the mask and label outputs. A round
    * upper figure, common practice, no source.
    */
