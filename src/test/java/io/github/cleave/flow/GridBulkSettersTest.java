@@ -179,20 +179,10 @@ class GridBulkSettersTest {
     SplittableRandom random = new SplittableRandom(13L);
     for (int trial = 0; trial < 120; trial++) {
       Neighborhood nb = ALL[trial % ALL.length];
-      int w = 1 + random.nextInt(12);
-      int h = 1 + random.nextInt(12);
-      int d = nb.isThreeDimensional() ? 1 + random.nextInt(5) : 1;
-      int n = w * h * d;
-      GridMaxFlow bulk = new GridMaxFlow(w, h, d, nb, random.nextBoolean()); // both storages
-      GridMaxFlow single = new GridMaxFlow(w, h, d, nb, true);
-      int[] caps = new int[n];
-      for (int k = 0; k < nb.size(); k += 2) {
-        for (int p = 0; p < n; p++) {
-          caps[p] = random.nextInt(30);
-        }
-        bulk.setSymmetricNeighborCapacities(k, caps);
-        single.setSymmetricNeighborCapacities(k, caps);
-      }
+      GridMaxFlow[] pair = equalArcs(random, nb, random.nextBoolean()); // both storages
+      GridMaxFlow bulk = pair[0];
+      GridMaxFlow single = pair[1];
+      int n = bulk.nodeCount();
       int[] nodes = new int[n];
       int[] source = new int[n];
       int[] sink = new int[n];
@@ -216,20 +206,10 @@ class GridBulkSettersTest {
     SplittableRandom random = new SplittableRandom(17L);
     for (int trial = 0; trial < 120; trial++) {
       Neighborhood nb = ALL[trial % ALL.length];
-      int w = 1 + random.nextInt(12);
-      int h = 1 + random.nextInt(12);
-      int d = nb.isThreeDimensional() ? 1 + random.nextInt(5) : 1;
-      int n = w * h * d;
-      GridMaxFlow bulk = new GridMaxFlow(w, h, d, nb, false); // its terminals start at zero
-      GridMaxFlow single = new GridMaxFlow(w, h, d, nb, true);
-      int[] caps = new int[n];
-      for (int k = 0; k < nb.size(); k += 2) {
-        for (int p = 0; p < n; p++) {
-          caps[p] = random.nextInt(30);
-        }
-        bulk.setSymmetricNeighborCapacities(k, caps);
-        single.setSymmetricNeighborCapacities(k, caps);
-      }
+      GridMaxFlow[] pair = equalArcs(random, nb, false); // its terminals start at zero
+      GridMaxFlow bulk = pair[0];
+      GridMaxFlow single = pair[1];
+      int n = bulk.nodeCount();
       int[][] source = new int[2][n];
       int[][] sink = new int[2][n];
       int calls = 1 + random.nextInt(2); // a second call adds to the first (not retained)
@@ -319,6 +299,29 @@ class GridBulkSettersTest {
     assertThatThrownBy(() -> solver.setNeighborCapacitiesOf(new int[] {4}, 1, negative))
         .isInstanceOf(IllegalArgumentException.class)
         .hasMessageContaining("must be between 0 and");
+  }
+
+  /**
+   * A solver to fill in bulk (retaining its capacities or not) and one that retains them, of the
+   * same random size, with the same random symmetric neighbour capacities and no terminals.
+   */
+  private static GridMaxFlow[] equalArcs(
+      SplittableRandom random, Neighborhood nb, boolean bulkRetains) {
+    int w = 1 + random.nextInt(12);
+    int h = 1 + random.nextInt(12);
+    int d = nb.isThreeDimensional() ? 1 + random.nextInt(5) : 1;
+    int n = w * h * d;
+    GridMaxFlow bulk = new GridMaxFlow(w, h, d, nb, bulkRetains);
+    GridMaxFlow single = new GridMaxFlow(w, h, d, nb, true);
+    int[] caps = new int[n];
+    for (int k = 0; k < nb.size(); k += 2) {
+      for (int p = 0; p < n; p++) {
+        caps[p] = random.nextInt(30);
+      }
+      bulk.setSymmetricNeighborCapacities(k, caps);
+      single.setSymmetricNeighborCapacities(k, caps);
+    }
+    return new GridMaxFlow[] {bulk, single};
   }
 
   private static void terminals(SplittableRandom random, int n, GridMaxFlow a, GridMaxFlow b) {
