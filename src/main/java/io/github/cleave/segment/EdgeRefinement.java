@@ -57,7 +57,7 @@ import java.util.function.Supplier;
  *
  * <p>Invariants: only band voxels can change; seeds keep their labels. Cost: O(n · (BAND + GAP +
  * RING + WINDOW)) for the band, levels and searches, plus one build and solve of the band's graph.
- * Memory: about ten arrays of n ints or floats. Stateless and thread-safe.
+ * Memory: a few arrays of n bytes or ints, the rest per band voxel. Stateless and thread-safe.
  */
 final class EdgeRefinement {
   /**
