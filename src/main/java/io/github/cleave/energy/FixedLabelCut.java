@@ -143,8 +143,9 @@ public final class FixedLabelCut {
    * Gives the same graph, mask and flow as the full form without a pass over the image, always on
    * compressed adjacency; for a band around a cut, whose voxels are few.
    *
-   * @throws IllegalArgumentException if the arrays' lengths differ or the neighbourhood does not
-   *     fit the image
+   * @throws IllegalArgumentException if the arrays' lengths differ, the neighbourhood does not fit
+   *     the image, or a listed voxel is labelled or out of order (an unlisted voxel labelled 0 is
+   *     not detected: that would take a pass over the image)
    */
   public static FixedLabelCut buildListed(
       Raster features,
@@ -167,9 +168,20 @@ public final class FixedLabelCut {
               labels.size()));
     }
     CutProblem.checkFits(features, parameters.neighborhood());
-    Arcs arcs = new Arcs(features, parameters, labels.labels());
-    return buildCompact(
-        labels.labels(), free, free.length, foregroundCost, backgroundCost, true, arcs);
+    byte[] fixed = labels.labels();
+    for (int i = 0; i < free.length; i++) { // what can be checked without a pass over the image
+      if (fixed[free[i]] != 0 || (i > 0 && free[i] <= free[i - 1])) {
+        throw new IllegalArgumentException(
+            String.format(
+                Locale.ROOT,
+                "free voxel %d (listed at %d) is %s: list the voxels labelled 0, ascending",
+                free[i],
+                i,
+                fixed[free[i]] != 0 ? "labelled " + fixed[free[i]] : "out of order"));
+      }
+    }
+    Arcs arcs = new Arcs(features, parameters, fixed);
+    return buildCompact(fixed, free, free.length, foregroundCost, backgroundCost, true, arcs);
   }
 
   private static FixedLabelCut buildGrid(

@@ -279,6 +279,7 @@ final class GridSearch {
     if (sinkActive != null) {
       sinkActive.clear();
     }
+    sinkTurn = false; // every solve from scratch takes the same turns: the same arc flows
   }
 
   /** Whether the trees take turns in this solve ({@link #chooseOrder}). */

@@ -29,7 +29,7 @@ final class SeededGrowth {
       max = Math.max(max, seeds[i]);
       if (mask[i] != 0 && seeds[i] == 0) {
         if (count == unseeded.length) {
-          unseeded = Arrays.copyOf(unseeded, 2 * count);
+          unseeded = Arrays.copyOf(unseeded, (int) Math.min(n, 2L * count));
         }
         unseeded[count++] = i;
       }

@@ -105,6 +105,31 @@ class FixedLabelCutTest {
         .isEqualTo(fixedBoundary(image, fixed, parameters));
   }
 
+  @Test
+  void theListedFormRefusesALabelledOrUnorderedList() {
+    Raster image =
+        Raster.grey(4, 4, 1, new float[16], new VoxelSize(1, 1, 1, "um", false), PixelKind.GREY16);
+    EnergyParameters parameters = new EnergyParameters(1, 10, Neighborhood.N4, image.voxelSize());
+    byte[] fixed = new byte[16];
+    java.util.Arrays.fill(fixed, (byte) SeedLabels.BACKGROUND);
+    fixed[5] = 0;
+    fixed[6] = 0;
+    SeedLabels labels = new SeedLabels(4, 4, 1, fixed);
+    float[] costs = new float[2];
+    org.assertj.core.api.Assertions.assertThatThrownBy(
+            () ->
+                FixedLabelCut.buildListed(
+                    image, new int[] {5, 7}, costs, costs, labels, parameters))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessageContaining("labelled 2");
+    org.assertj.core.api.Assertions.assertThatThrownBy(
+            () ->
+                FixedLabelCut.buildListed(
+                    image, new int[] {6, 5}, costs, costs, labels, parameters))
+        .isInstanceOf(IllegalArgumentException.class)
+        .hasMessageContaining("out of order");
+  }
+
   /** Σ B_pq over neighbour pairs with p fixed foreground and q fixed background, by the formula. */
   private static long fixedBoundary(Raster image, byte[] fixed, EnergyParameters parameters) {
     Neighborhood nb = parameters.neighborhood();
