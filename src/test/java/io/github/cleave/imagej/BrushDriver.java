@@ -282,9 +282,14 @@ public final class BrushDriver {
 
   /**
    * Moves a top-level window to ({@code x}, {@code y}) on the screen and waits until the display
-   * has it there: a move right after the window was shown can be lost (no window manager).
+   * has it there: a move right after the window was shown can be lost (no window manager), while
+   * Java already reports the new place; so the window goes by way of a neighbouring spot first,
+   * which makes the toolkit send the move to the display again.
    */
   private static void place(Robot robot, java.awt.Window w, int x, int y) throws Exception {
+    EventQueue.invokeAndWait(() -> w.setLocation(x + 1, y));
+    robot.waitForIdle();
+    Thread.sleep(100);
     for (int attempt = 0; attempt < 20; attempt++) {
       EventQueue.invokeAndWait(() -> w.setLocation(x, y));
       robot.waitForIdle();
@@ -304,8 +309,12 @@ public final class BrushDriver {
     robot.waitForIdle();
   }
 
-  /** Raises {@code frame} (no window manager keeps it on top), then clicks {@code c}. */
+  /**
+   * Puts {@code frame} where it should be again and raises it (no window manager keeps it there or
+   * on top), then clicks {@code c}.
+   */
   private static void clickOnTop(Robot robot, Frame frame, Component c) throws Exception {
+    place(robot, frame, frame.getX(), frame.getY());
     EventQueue.invokeAndWait(frame::toFront);
     robot.waitForIdle();
     Thread.sleep(200);
