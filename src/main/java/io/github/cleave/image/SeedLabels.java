@@ -1,8 +1,5 @@
 package io.github.cleave.image;
 
-import java.lang.invoke.MethodHandles;
-import java.lang.invoke.VarHandle;
-import java.nio.ByteOrder;
 import java.util.Arrays;
 import java.util.Locale;
 
@@ -23,10 +20,6 @@ public final class SeedLabels {
 
   /** Largest class label supported. */
   public static final int MAX_CLASS = 255;
-
-  /** Eight labels as one word, to pass over unlabelled voxels eight at a time. */
-  private static final VarHandle WORD =
-      MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
 
   private final int width;
   private final int height;
@@ -97,20 +90,7 @@ public final class SeedLabels {
    * eighth of a pass over the image plus the seeds themselves (seeds are a few strokes).
    */
   public static int nextLabelled(byte[] labels, int from) {
-    int p = from;
-    while (p < labels.length && (p & 7) != 0) { // to a word boundary
-      if (labels[p] != 0) {
-        return p;
-      }
-      p++;
-    }
-    while (p + 8 <= labels.length && (long) WORD.get(labels, p) == 0) {
-      p += 8;
-    }
-    while (p < labels.length && labels[p] == 0) {
-      p++;
-    }
-    return p;
+    return ByteWords.nextNonZero(labels, from, labels.length);
   }
 
   /** Number of seed voxels per label, indexed by label 0..maxLabel. */

@@ -1,8 +1,6 @@
 package io.github.cleave.objects;
 
-import java.lang.invoke.MethodHandles;
-import java.lang.invoke.VarHandle;
-import java.nio.ByteOrder;
+import io.github.cleave.image.ByteWords;
 import java.util.Arrays;
 
 /**
@@ -21,9 +19,6 @@ import java.util.Arrays;
  * call.
  */
 final class ForegroundRuns {
-  private static final VarHandle LONGS =
-      MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
-
   final int w;
   final int h;
   final int d;
@@ -59,9 +54,7 @@ final class ForegroundRuns {
       int x = 0;
       while (x < w) {
         if (skip == null) { // skip background eight voxels at a time
-          while (x + 8 <= w && (long) LONGS.get(mask, base + x) == 0) {
-            x += 8;
-          }
+          x = ByteWords.nextNonZero(mask, base + x, base + w) - base;
         }
         while (x < w && (mask[base + x] == 0 || (skip != null && skip[base + x] != 0))) {
           x++;

@@ -1,8 +1,6 @@
 package io.github.cleave.segment;
 
-import java.lang.invoke.MethodHandles;
-import java.lang.invoke.VarHandle;
-import java.nio.ByteOrder;
+import io.github.cleave.image.ByteWords;
 import java.util.Arrays;
 
 /**
@@ -13,10 +11,6 @@ import java.util.Arrays;
  * recursion; O(n · steps). Stateless.
  */
 final class BoundaryBand {
-  /** Eight bytes of the mask as one word, for comparing eight voxels at once. */
-  private static final VarHandle WORD =
-      MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
-
   private BoundaryBand() {}
 
   /**
@@ -135,14 +129,14 @@ final class BoundaryBand {
     while (x < w) {
       int p = row + x;
       if (x >= 1 && x + 9 <= w) { // a word whose left and right neighbours lie in the row
-        long a = (long) WORD.get(mask, p);
+        long a = ByteWords.at(mask, p);
         long differ =
-            (a ^ (long) WORD.get(mask, p - 1))
-                | (a ^ (long) WORD.get(mask, p + 1))
-                | (a ^ (long) WORD.get(mask, p + up))
-                | (a ^ (long) WORD.get(mask, p + down))
-                | (a ^ (long) WORD.get(mask, p + below))
-                | (a ^ (long) WORD.get(mask, p + above));
+            (a ^ ByteWords.at(mask, p - 1))
+                | (a ^ ByteWords.at(mask, p + 1))
+                | (a ^ ByteWords.at(mask, p + up))
+                | (a ^ ByteWords.at(mask, p + down))
+                | (a ^ ByteWords.at(mask, p + below))
+                | (a ^ ByteWords.at(mask, p + above));
         if (differ != 0) {
           for (int i = 0; i < 8; i++) {
             if (differs(mask, p + i, -1, 1, up, down, below, above)) {
